@@ -1,0 +1,5 @@
+export { measureGlyph, inkOfShapes, summarise, type GlyphInk, type MeasureOptions } from './measureGlyph';
+export { cutInk, cutByWidth, type CutDirection, type InkCut } from './cutInk';
+export { collectShapes, shapeToPathData, parseViewBox, type PaintedShape, type CollectedGlyph } from './collectShapes';
+export { flattenPathData, newBudget, type Polyline } from './flattenPath';
+export { strokeRegion, type StrokeStyle, type LineCap, type LineJoin } from './strokeOutline';
