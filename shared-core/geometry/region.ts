@@ -1,6 +1,7 @@
 // Regions of ink: sets of closed rings after a union, outer rings and holes with opposite orientation,
 // read under the nonzero rule. All area work funnels through here so precision is handled once.
 import { Clipper, ClipType, FillRule, type PathD, type PathsD } from 'clipper2-ts';
+import { TallyError } from '../errors';
 import type { Matrix } from './matrix';
 
 export type { PathD, PathsD };
@@ -72,6 +73,7 @@ export function regionCentroid(region: Region): { x: number; y: number } {
 export function unionPaths(paths: PathsD, rule: 'nonzero' | 'evenodd'): Region {
   const usable = paths.filter((p) => p.length >= 3);
   if (!usable.length) return [];
+  guardCrossings(usable);
   const prec = clipperPrecision(extentOf(usable));
   return Clipper.booleanOpD(ClipType.Union, usable, null, rule === 'evenodd' ? FillRule.EvenOdd : FillRule.NonZero, prec);
 }
@@ -80,6 +82,59 @@ export function unionPaths(paths: PathsD, rule: 'nonzero' | 'evenodd'): Region {
 export function unionRegions(regions: Region[]): Region {
   const all = regions.flat();
   return unionPaths(all, 'nonzero');
+}
+
+/**
+ * Most edge crossings a union may face. The clipper's cost grows with crossings (about 0.5 M per
+ * second measured here), and real glyph outlines have almost none; scribbled or random outlines
+ * have millions, which would stall the app without this guard.
+ */
+export const MAX_ESTIMATED_CROSSINGS = 1_000_000;
+
+/** Estimate how many edge pairs cross by sampling random pairs; refuse outlines that would stall the union. */
+export function guardCrossings(paths: PathsD, limit = MAX_ESTIMATED_CROSSINGS): void {
+  let edges = 0;
+  for (const p of paths) edges += p.length;
+  if (edges < 2000) return;
+  const starts: number[] = [];
+  let acc = 0;
+  for (const p of paths) {
+    starts.push(acc);
+    acc += p.length;
+  }
+  const edgeAt = (k: number): [PathD, number] => {
+    let lo = 0, hi = starts.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi + 1) >> 1;
+      if (starts[mid] <= k) lo = mid;
+      else hi = mid - 1;
+    }
+    return [paths[lo], k - starts[lo]];
+  };
+  let seed = 0x9e3779b9;
+  const rnd = () => {
+    seed ^= seed << 13; seed ^= seed >>> 17; seed ^= seed << 5;
+    return (seed >>> 0) / 4294967296;
+  };
+  const samples = 20_000;
+  let hits = 0;
+  for (let s = 0; s < samples; s++) {
+    const [pa, ia] = edgeAt(Math.floor(rnd() * edges));
+    const [pb, ib] = edgeAt(Math.floor(rnd() * edges));
+    if (pa === pb && Math.abs(ia - ib) <= 1) continue;
+    const a1 = pa[ia], a2 = pa[(ia + 1) % pa.length], b1 = pb[ib], b2 = pb[(ib + 1) % pb.length];
+    if (segmentsCross(a1, a2, b1, b2)) hits++;
+  }
+  const estimate = (hits / samples) * (edges * edges) / 2;
+  if (estimate > limit) {
+    throw new TallyError('geometry-limit', `The outline crosses itself about ${Math.round(estimate).toLocaleString('en')} times (limit ${limit.toLocaleString('en')}); it looks like scribble rather than a glyph. Simplify it.`);
+  }
+}
+
+function segmentsCross(a: { x: number; y: number }, b: { x: number; y: number }, c: { x: number; y: number }, d: { x: number; y: number }): boolean {
+  const o = (p: { x: number; y: number }, q: { x: number; y: number }, r: { x: number; y: number }) => (q.x - p.x) * (r.y - p.y) - (q.y - p.y) * (r.x - p.x);
+  const d1 = o(a, b, c), d2 = o(a, b, d), d3 = o(c, d, a), d4 = o(c, d, b);
+  return d1 * d2 < 0 && d3 * d4 < 0;
 }
 
 export function intersectRegions(a: Region, b: Region): Region {

@@ -1,0 +1,30 @@
+export {
+  rasterizeSvg,
+  renderSvgPixels,
+  readSvgPageSize,
+  rasterSizePx,
+  RASTER_LIMITS,
+  type RasterOptions,
+  type RasterResult,
+  type RasterPixels,
+  type SvgPageSize,
+} from './rasterizeSvg';
+export {
+  withPhysChunk,
+  readPhysChunk,
+  validatePngChunks,
+  readPngSize,
+  ppiToPpm,
+  pngCrc32,
+  type PhysChunk,
+  type PngChunk,
+} from './physChunk';
+export {
+  alphaCoverage,
+  coverageMm2,
+  markCoverages,
+  isolateMark,
+  isolateEachMark,
+  type PixelRegion,
+  type MarkCoverage,
+} from './coverage';
