@@ -15,6 +15,10 @@ export default tseslint.config(
     },
   },
   {
+    files: ['bin/**/*.js', 'scripts/**/*.js', '*.js'],
+    languageOptions: { globals: { URL: 'readonly', console: 'readonly', process: 'readonly' } },
+  },
+  {
     files: ['shared-core/**/*.ts'],
     rules: {
       'no-restricted-imports': ['error', {
