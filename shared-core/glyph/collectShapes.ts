@@ -16,6 +16,11 @@ export interface PaintedShape {
   stroke: StrokeStyle | null;
   /** Identifier of the nearest ancestor (or self) carrying an id, for reporting. */
   id?: string;
+  /**
+   * The elements from the root down to this shape, as drawn: through a `use`, the chain runs
+   * root → … → use → referenced element → … → shape. Lets readers group ink by the mark it belongs to.
+   */
+  chain: readonly XmlElement[];
 }
 
 export interface CollectedGlyph {
@@ -82,7 +87,8 @@ export function collectShapes(root: XmlElement, opts: CollectOptions = {}): Coll
   const viewBox = parseViewBox(root.attrs.viewBox);
   const shapes: PaintedShape[] = [];
 
-  const visit = (el: XmlElement, parentCtm: Matrix, parent: Style, useStack: string[], nearestId?: string) => {
+  const visit = (el: XmlElement, parentCtm: Matrix, parent: Style, useStack: string[], parentChain: readonly XmlElement[], nearestId?: string) => {
+    const chain = [...parentChain, el];
     const name = el.name;
     if (NOT_RENDERED.has(name)) return;
     const attrs = readAttributes(el);
@@ -122,7 +128,7 @@ export function collectShapes(root: XmlElement, opts: CollectOptions = {}): Coll
       const useCtm = multiply(ctm, translation(num(attrs.x, 0, 'x'), num(attrs.y, 0, 'y')));
       const inner = target.name === 'symbol' ? { ...target, name: 'g' } : target;
       if (target.name === 'symbol' && target.attrs.viewBox) warn('symbol-viewbox', 'A <symbol> viewBox is ignored; the symbol is drawn in its own units.');
-      visit(inner, useCtm, style, [...useStack, href], id);
+      visit(inner, useCtm, style, [...useStack, href], chain, id);
       return;
     }
     if (SHAPES.has(name)) {
@@ -135,20 +141,20 @@ export function collectShapes(root: XmlElement, opts: CollectOptions = {}): Coll
         const fill = fillOn && name !== 'line' ? { rule: style.fillRule } : null;
         const stroke = strokeOn ? { width: style.strokeWidth, join: style.join, cap: style.cap, miterLimit: style.miterLimit } : null;
         if (fill || stroke) {
-          shapes.push({ tag: name, d, ctm, fill, stroke, id });
+          shapes.push({ tag: name, d, ctm, fill, stroke, id, chain });
           if (shapes.length > maxShapes) throw new TallyError('svg-limit', `The file paints more than ${maxShapes} shapes (shape count limit).`);
         }
       }
       return;
     }
     if (name === 'g' || name === 'svg' || name === 'a') {
-      for (const c of el.children) visit(c, ctm, style, useStack, id);
+      for (const c of el.children) visit(c, ctm, style, useStack, chain, id);
       return;
     }
     warn('unknown-element', `An unknown element <${el.qname}> is ignored.`);
   };
 
-  visit(root, IDENTITY, ROOT_STYLE, []);
+  visit(root, IDENTITY, ROOT_STYLE, [], []);
   return { shapes, viewBox, warnings };
 }
 

@@ -151,12 +151,32 @@ describe('glyph index integrity', () => {
     }
   });
 
-  it('gives the circle glyph the box fraction of a disc, π/4 (area πr² over (2r)²)', () => {
+  const pathData = (svg: string) => [...walkElements(parseXml(svg))].filter((el) => el.name === 'path').map((el) => el.attrs.d);
+
+  it('measures the circle glyph as its two arcs enclose (circular segment area r²/2·(φ − sin φ))', () => {
+    // Upstream draws 3/4 of a circle of radius 104 about (128,128), then closes the last quarter with
+    // a slightly flatter arc of radius 104.13 over the same chord (SVG 1.1 F.6: radii that are large
+    // enough are used as given). Exact area: disc − segment(r = 104) + segment(r = 104.13).
     const circle = getGlyph('circle');
-    expect(circle.bbox.width).toBeCloseTo(circle.bbox.height, 3);
-    expect(Math.abs(circle.boxFraction - Math.PI / 4)).toBeLessThan(1e-4);
-    const r = circle.bbox.width / 2;
-    expect(Math.abs(circle.inkAreaUnits2 / (Math.PI * r * r) - 1)).toBeLessThan(1e-4);
+    expect(pathData(circle.svg)).toEqual(['M232,128A104,104,0,1,1,128,24,104.13,104.13,0,0,1,232,128Z']);
+    const chord = Math.hypot(232 - 128, 128 - 24);
+    const segment = (r: number) => {
+      const phi = 2 * Math.asin(chord / 2 / r);
+      return (r * r / 2) * (phi - Math.sin(phi));
+    };
+    const exact = Math.PI * 104 ** 2 - segment(104) + segment(104.13);
+    // Flattening at 1e-5 of the extent loses about (2/3)·sagitta·perimeter ≈ 3e-5 of the area.
+    expect(Math.abs(circle.inkAreaUnits2 / exact - 1)).toBeLessThan(1e-4);
+    for (const [got, want] of [[circle.bbox.x, 24], [circle.bbox.y, 24], [circle.bbox.width, 208], [circle.bbox.height, 208]]) {
+      expect(Math.abs(got - want)).toBeLessThan(0.01);
+    }
+  });
+
+  it('measures the square glyph as a rounded rectangle (area w·h − (4 − π)·r²)', () => {
+    const square = getGlyph('square');
+    expect(pathData(square.svg)).toEqual(['M224,48V208a16,16,0,0,1-16,16H48a16,16,0,0,1-16-16V48A16,16,0,0,1,48,32H208A16,16,0,0,1,224,48Z']);
+    const exact = 192 * 192 - (4 - Math.PI) * 16 ** 2;
+    expect(Math.abs(square.inkAreaUnits2 / exact - 1)).toBeLessThan(1e-4);
   });
 });
 
