@@ -20,8 +20,8 @@ time('ink-true cut of person at 0.37 (btt)', 50, () => cutInk(person.region, 0.3
 
 const optional: [string, () => Promise<void>][] = [
   ['pipeline', async () => {
-    const { renderChart } = await import('../shared-core/pipeline/index.ts');
-    const { DEMO_CHARTS } = (await import('../shared-core/demo/demoCharts.ts')) as unknown as { DEMO_CHARTS: { name?: string; document?: unknown }[] | Record<string, unknown> };
+    const { renderChart } = await import('../shared-core/pipeline');
+    const { DEMO_CHARTS } = (await import('../shared-core/demo/demoCharts')) as unknown as { DEMO_CHARTS: { name?: string; document?: unknown }[] | Record<string, unknown> };
     const docs = Array.isArray(DEMO_CHARTS) ? DEMO_CHARTS.map((d) => ('document' in d ? d.document : d)) : Object.values(DEMO_CHARTS);
     docs.forEach((doc, i) => time(`render + verify demo chart ${i + 1}`, 3, () => renderChart(doc as never)));
   }],

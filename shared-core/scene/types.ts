@@ -20,6 +20,11 @@ export interface SceneGlyph {
   fraction: number;
   /** Stack slot counted from the baseline (0 = on the baseline), stack mode only. */
   slot?: number;
+  /**
+   * Set when the piece is a shared shape (Scene.shapes[shape]) moved by (xMm, yMm) and nothing else:
+   * `region` equals that shape translated. Lets the writer reuse geometry with <use> when asked to.
+   */
+  ref?: { shape: string; xMm: number; yMm: number };
 }
 
 export interface SceneMark {
@@ -48,6 +53,8 @@ export interface SceneText {
   color: string;
   /** Mark id this text describes, if any. */
   owner?: string;
+  /** Ink bounds of the outlined text at layout time (page mm), for collision checks. */
+  bboxMm?: { x: number; y: number; width: number; height: number };
 }
 
 export interface SceneLine {
@@ -99,4 +106,26 @@ export interface Scene {
   legendKeys: SceneLegendKey[];
   summary: ChartSummary;
   warnings: Warning[];
+  /** Glyph outlines shared by several pieces (see SceneGlyph.ref), page mm with the ink box's top-left at 0,0. */
+  shapes?: Record<string, Region>;
+  /** Repeat and stack: the unit used, whether the layout chose it, and what rounding to whole glyphs costs per category. */
+  unitChoice?: SceneUnitChoice;
+}
+
+export interface SceneUnitChoice {
+  unit: number;
+  /** True when the document gave no unit and the layout picked a readable one. */
+  chosen: boolean;
+  rounding: 'ink-cut' | 'whole';
+  categories: {
+    label: string;
+    /** value / unit. */
+    exact: number;
+    /** Glyphs drawn: exact (ink-cut) or the nearest whole number (whole). */
+    drawn: number;
+    /** drawn - exact, in glyphs. */
+    error: number;
+    /** error / exact; 0 for a zero value. */
+    relativeError: number;
+  }[];
 }

@@ -57,7 +57,7 @@ export const command: CliCommand = {
 
 async function readGlyphSource(arg: string, cwd: string): Promise<{ svg: string; source: string }> {
   const path = resolve(cwd, arg);
-  let isFile = false;
+  let isFile: boolean;
   try {
     isFile = statSync(path).isFile();
   } catch {

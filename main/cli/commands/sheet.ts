@@ -1,0 +1,93 @@
+// `tallyglyph sheet`: the supplied SVG and its correction side by side, each with its lie factor, a
+// one-line explanation and the data, written as SVG or PNG (resolution recorded, as export does).
+import fs from 'node:fs';
+import path from 'node:path';
+import { parseArgs } from 'node:util';
+import { buildSheet } from '../../../shared-core/audit/buildSheet';
+import { correctSvg, parseAnchor } from '../../../shared-core/audit/correctSvg';
+import { formatFactor } from '../../../shared-core/audit/formatNumbers';
+import { TallyError } from '../../../shared-core/errors';
+import { parseIdList, parseNumberFlag } from '../../audit/cliOptions';
+import { readSuppliedFile } from '../../audit/readSupplied';
+import { DEFAULT_PPI, formatFromPath } from '../../export/exportChart';
+import { writeFileAtomicSync } from '../../io/atomicWrite';
+import { ppiToPpm, rasterizeSvg, readPhysChunk } from '../../raster/index';
+import { EXIT, type CliCommand } from '../types';
+
+const usage = `Usage: tallyglyph sheet <file.svg> --values <list> -o <sheet.svg|sheet.png> [options]
+
+Puts the supplied drawing and its correction (see \`tallyglyph correct\`) side by side, each with its
+lie factor, a one-line explanation and the data: a page to send to a client.
+
+Options:
+  --values <list>    the data, in mark order (18,27.5) or by mark id (mark-a=18,mark-b=27.5)
+  --marks <ids>      the ids of the elements that are the marks, in value order
+  --reading <name>   area, length or volume (default: the one the geometry suggests)
+  --anchor <where>   the point each mark is rescaled about (default bottom-centre)
+  --title <text>     a heading for the sheet
+  --ppi <n>          PNG resolution (default ${DEFAULT_PPI})
+  -o, --output <file>  sheet.svg or sheet.png
+`;
+
+export const command: CliCommand = {
+  name: 'sheet',
+  summary: 'Write the supplied SVG and its correction side by side, with lie factors and the data.',
+  usage,
+  async run(argv, io) {
+    const { values, positionals } = parseArgs({
+      args: argv,
+      allowPositionals: true,
+      options: {
+        values: { type: 'string' },
+        marks: { type: 'string' },
+        reading: { type: 'string' },
+        anchor: { type: 'string' },
+        title: { type: 'string' },
+        ppi: { type: 'string' },
+        output: { type: 'string', short: 'o' },
+      },
+    });
+    if (positionals.length !== 1 || !values.output) {
+      io.stderr(`tallyglyph sheet: give one SVG file and an output file (-o sheet.svg or sheet.png).\n${usage}`);
+      return EXIT.usage;
+    }
+    const input = path.resolve(io.cwd, positionals[0]);
+    const output = path.resolve(io.cwd, values.output);
+    const format = formatFromPath(output);
+    if (fs.existsSync(output) && fs.realpathSync(output) === fs.realpathSync(input)) {
+      throw new TallyError('usage', 'The output would overwrite the supplied file; choose another name.');
+    }
+    const reading = values.reading;
+    if (reading !== undefined && reading !== 'area' && reading !== 'length' && reading !== 'volume') {
+      throw new TallyError('usage', `--reading must be area, length or volume (got "${reading.slice(0, 30)}").`);
+    }
+    const ppi = parseNumberFlag(values.ppi, '--ppi') ?? DEFAULT_PPI;
+    const file = readSuppliedFile(input);
+    if (file.kind !== 'svg') throw new TallyError('usage', 'sheet works on SVG files; an image mock-up cannot be corrected in place.');
+    const fixed = correctSvg(file.text, {
+      values: values.values,
+      markIds: parseIdList(values.marks),
+      ...(reading ? { reading } : {}),
+      ...(values.anchor ? { anchor: parseAnchor(values.anchor) } : {}),
+    });
+    const sheet = buildSheet({ supplied: file.text, corrected: fixed.svg, before: fixed.before, after: fixed.after, reading: fixed.reading, title: values.title });
+    let bytes: Uint8Array;
+    if (format === 'svg') bytes = new TextEncoder().encode(sheet.svg);
+    else {
+      const image = rasterizeSvg(sheet.svg, { ppi, background: '#ffffff' });
+      // As chart export does: a PNG that does not say its resolution is placed at the wrong size.
+      const phys = readPhysChunk(image.png);
+      if (!phys || phys.unit !== 1 || phys.ppmX !== ppiToPpm(ppi)) throw new TallyError('raster-invalid', `The PNG does not record its resolution of ${ppi} ppi; nothing was written.`);
+      bytes = image.png;
+    }
+    writeFileAtomicSync(output, bytes);
+    const r = fixed.reading;
+    const lines = [
+      `Sheet: supplied (${r} lie factor ${formatFactor(fixed.before.readings[r].lieFactor.worst)}) beside corrected (${formatFactor(fixed.after.readings[r].lieFactor.worst)}).`,
+      ...[...fixed.warnings, ...sheet.warnings].map((w) => `Note: ${w.message}`),
+      `Wrote ${path.relative(io.cwd, output) || output}.`,
+    ];
+    io.stdout(lines.join('\n') + '\n');
+    return EXIT.ok;
+  },
+};

@@ -1,0 +1,380 @@
+// What the main process does for the UI, without importing Electron: dialogs, the file system and
+// the rasteriser come in as ports, so every handler runs (and is tested) in plain Node.
+// main.ts supplies the Electron ports and registers these handlers on the allowlisted channels.
+
+import fs from 'node:fs/promises';
+import path from 'node:path';
+import { createHash } from 'node:crypto';
+import { z } from 'zod';
+import { parseChart } from '../../shared-core/document';
+import { TallyError, isTallyError } from '../../shared-core/errors';
+import { verifySvg } from '../../shared-core/integrity';
+import {
+  HOST_API_VERSION,
+  HOST_CHANNELS,
+  HOST_LIMITS,
+  failureFromError,
+  hostFailure,
+  hostSuccess,
+  hostValueSchemas,
+  methodForChannel,
+  parseHostRequest,
+  type HostCapabilities,
+  type HostMethod,
+  type HostRequest,
+  type HostResult,
+  type MenuCommand,
+  type RecentChart,
+} from '../../shared-core/host';
+import { writeFileAtomic } from '../io/atomicWrite';
+import { rasterizeSvg } from '../raster';
+
+export type FileKind = 'chart' | 'svg' | 'png';
+
+/** File filters for dialogs, by what is being written or read. */
+export const FILE_FILTERS: Readonly<Record<FileKind, { name: string; extensions: string[] }>> = Object.freeze({
+  chart: { name: 'Tallyglyph chart', extensions: ['tallyglyph.json', 'json'] },
+  svg: { name: 'SVG image', extensions: ['svg'] },
+  png: { name: 'PNG image', extensions: ['png'] },
+});
+
+/** Native dialogs, as main.ts provides them; null means the user cancelled. */
+export interface DialogPort {
+  chooseOpenPath(): Promise<string | null>;
+  chooseSavePath(options: { suggestedName: string; kind: FileKind; folder: string | null }): Promise<string | null>;
+}
+
+export interface FilePort {
+  readText(filePath: string, maxBytes: number): Promise<string>;
+  writeAtomic(filePath: string, data: string | Uint8Array): Promise<void>;
+}
+
+export interface HandlerDeps {
+  dialogs: DialogPort;
+  /** Where the recent-files list is kept (a JSON file in the app's user-data folder). */
+  recentFile: string;
+  files?: FilePort;
+  /** SVG to PNG bytes with the resolution recorded in pHYs. Default: main/raster rasterizeSvg. */
+  rasterize?: (svg: string, ppi: number) => Uint8Array;
+  /**
+   * Last check before an export reaches the disk: a sentence saying why the file must not be
+   * written, or null. The UI already refuses; this keeps a buggy or hostile renderer from writing
+   * a distorted chart through the host.
+   */
+  checkExport?: (svg: string) => string | null;
+  now?: () => number;
+}
+
+export type HostHandler = (payload: unknown) => Promise<HostResult<unknown>>;
+export type HostHandlers = { readonly [M in HostMethod]: HostHandler };
+
+/**
+ * The export check main.ts uses: the file is re-measured from its text alone, so only a chart that
+ * passes the lie-factor gate reaches the disk, whatever the renderer claims.
+ */
+export function exportRefusal(svg: string): string | null {
+  try {
+    const report = verifySvg(svg);
+    return report.pass ? null : `Not exported: ${report.reason ?? 'the chart did not pass the honesty check.'}`;
+  } catch (e) {
+    return `Not exported: ${isTallyError(e) ? e.message : 'the file could not be checked.'}`;
+  }
+}
+
+export const nodeFiles: FilePort = {
+  async readText(filePath, maxBytes) {
+    const stat = await fs.stat(filePath);
+    if (!stat.isFile()) throw new TallyError('io-error', `"${path.basename(filePath)}" is not a file.`);
+    if (stat.size > maxBytes) {
+      throw new TallyError('io-error', `"${path.basename(filePath)}" is ${Math.round(stat.size / 1e6)} MB; a chart document is at most ${Math.round(maxBytes / 1e6)} MB.`);
+    }
+    return fs.readFile(filePath, 'utf8');
+  },
+  writeAtomic: (filePath, data) => writeFileAtomic(filePath, data),
+};
+
+/** A stable opaque id for a path, so the UI can name a file without ever holding its path. */
+export function documentIdFor(filePath: string): string {
+  return 'doc-' + createHash('sha256').update(path.resolve(filePath)).digest('hex').slice(0, 24);
+}
+
+function displayName(filePath: string): string {
+  const base = path.basename(filePath);
+  // eslint-disable-next-line no-control-regex
+  const clean = base.replace(/[/\\:*?"<>|\u0000-\u001f\u007f]+/g, '_').replace(/^\.+/, '').slice(0, HOST_LIMITS.maxNameChars);
+  return clean || 'chart.json';
+}
+
+// ---------------------------------------------------------------------------------------------
+// Recent files
+
+const RECENT_FORMAT = 'tallyglyph.recent/1';
+const storedRecentSchema = z.object({
+  format: z.literal(RECENT_FORMAT),
+  entries: z.array(z.object({ path: z.string().min(1).max(4096), whenMs: z.number().int().min(0) })).max(100),
+});
+type StoredRecent = z.infer<typeof storedRecentSchema>['entries'];
+
+export interface RecentStore {
+  list(): Promise<StoredRecent>;
+  remember(filePath: string): Promise<void>;
+}
+
+/** The recent-files list in one JSON file; a missing or damaged file reads as an empty list. */
+export function createRecentStore(recentFile: string, files: FilePort, now: () => number): RecentStore {
+  async function list(): Promise<StoredRecent> {
+    try {
+      const parsed = storedRecentSchema.safeParse(JSON.parse(await files.readText(recentFile, 1024 * 1024)));
+      return parsed.success ? parsed.data.entries.slice(0, HOST_LIMITS.maxRecent) : [];
+    } catch {
+      return [];
+    }
+  }
+  async function remember(filePath: string): Promise<void> {
+    const resolved = path.resolve(filePath);
+    const entries = [{ path: resolved, whenMs: Math.round(now()) }, ...(await list()).filter((e) => e.path !== resolved)].slice(0, HOST_LIMITS.maxRecent);
+    try {
+      await files.writeAtomic(recentFile, JSON.stringify({ format: RECENT_FORMAT, entries }, null, 2) + '\n');
+    } catch {
+      // Losing the recent list is not worth failing a save or an open over.
+    }
+  }
+  return { list, remember };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Handlers
+
+export const ELECTRON_CAPABILITIES: HostCapabilities = Object.freeze({
+  apiVersion: HOST_API_VERSION,
+  kind: 'electron',
+  rasterizesPng: true,
+  menuShortcuts: true,
+  savesInPlace: true,
+});
+
+function withExtension(filePath: string, extension: string): string {
+  return filePath.toLowerCase().endsWith(`.${extension}`) ? filePath : `${filePath}.${extension}`;
+}
+
+/** Every host call, validated on arrival and answered with a result value; nothing here throws. */
+export function createHostHandlers(deps: HandlerDeps): HostHandlers {
+  const files = deps.files ?? nodeFiles;
+  const now = deps.now ?? Date.now;
+  const rasterize = deps.rasterize ?? ((svg: string, ppi: number) => rasterizeSvg(svg, { ppi }).png);
+  const recent = createRecentStore(deps.recentFile, files, now);
+  // Paths this session opened or saved, by id; recent entries add theirs on demand.
+  const known = new Map<string, string>();
+  let lastFolder: string | null = null;
+
+  function rememberPath(filePath: string): string {
+    const id = documentIdFor(filePath);
+    known.set(id, path.resolve(filePath));
+    lastFolder = path.dirname(filePath);
+    return id;
+  }
+
+  async function pathForId(id: string): Promise<string | null> {
+    const seen = known.get(id);
+    if (seen) return seen;
+    const entry = (await recent.list()).find((e) => documentIdFor(e.path) === id);
+    return entry ? entry.path : null;
+  }
+
+  function guarded<M extends HostMethod>(method: M, work: (request: HostRequest<M>) => Promise<unknown>): HostHandler {
+    return async (payload) => {
+      try {
+        const request = parseHostRequest(method, payload);
+        const value = await work(request);
+        // Check our own reply too: the preload will refuse anything off-contract anyway.
+        const checked = hostValueSchemas[method].safeParse(value);
+        if (!checked.success) return hostFailure('host-invalid', `The "${method}" reply did not match the contract.`);
+        return hostSuccess(checked.data);
+      } catch (e) {
+        return failureFromError(e);
+      }
+    };
+  }
+
+  async function writeExport(kind: 'svg' | 'png', svg: string, suggestedName: string, bytes: () => Uint8Array | string): Promise<{ name: string; bytes: number } | null> {
+    const refusal = deps.checkExport?.(svg) ?? null;
+    if (refusal) throw new TallyError('gate-refused', refusal);
+    const chosen = await deps.dialogs.chooseSavePath({ suggestedName, kind, folder: lastFolder });
+    if (!chosen) return null;
+    const target = withExtension(chosen, kind);
+    const data = bytes();
+    await files.writeAtomic(target, data);
+    lastFolder = path.dirname(target);
+    const size = typeof data === 'string' ? new TextEncoder().encode(data).length : data.length;
+    return { name: displayName(target), bytes: size };
+  }
+
+  return {
+    getCapabilities: guarded('getCapabilities', async () => ELECTRON_CAPABILITIES),
+
+    openChart: guarded('openChart', async (request) => {
+      let filePath: string | null;
+      if (request.documentId) {
+        filePath = await pathForId(request.documentId);
+        if (!filePath) throw new TallyError('io-error', 'That chart is no longer in the recent list; open it with Open… instead.');
+      } else {
+        filePath = await deps.dialogs.chooseOpenPath();
+        if (!filePath) return null;
+      }
+      let text: string;
+      try {
+        text = await files.readText(filePath, HOST_LIMITS.maxDocumentChars);
+      } catch (e) {
+        if (e instanceof TallyError) throw e;
+        const code = (e as NodeJS.ErrnoException).code;
+        const reason = code === 'ENOENT' ? 'it no longer exists' : code === 'EACCES' || code === 'EPERM' ? 'permission was denied' : (e as Error).message;
+        throw new TallyError('io-error', `Could not open "${path.basename(filePath)}": ${reason}.`);
+      }
+      const id = rememberPath(filePath);
+      await recent.remember(filePath);
+      return { documentId: id, name: displayName(filePath), text };
+    }),
+
+    saveChart: guarded('saveChart', async (request) => {
+      // Bad input never overwrites a good file: the text must be a valid chart document.
+      parseChart(request.text);
+      let target = !request.saveAs && request.documentId ? await pathForId(request.documentId) : null;
+      if (!target) {
+        const chosen = await deps.dialogs.chooseSavePath({ suggestedName: request.suggestedName, kind: 'chart', folder: lastFolder });
+        if (!chosen) return null;
+        target = withExtension(chosen, 'json');
+      }
+      await files.writeAtomic(target, request.text);
+      const id = rememberPath(target);
+      await recent.remember(target);
+      return { documentId: id, name: displayName(target) };
+    }),
+
+    exportSvg: guarded('exportSvg', async (request) => writeExport('svg', request.svg, request.suggestedName, () => request.svg)),
+
+    exportPng: guarded('exportPng', async (request) =>
+      writeExport('png', request.svg, request.suggestedName, () => rasterize(request.svg, request.ppi)),
+    ),
+
+    listRecent: guarded('listRecent', async () => {
+      const entries = await recent.list();
+      return entries.map(
+        (e): RecentChart => ({ documentId: documentIdFor(e.path), name: displayName(e.path), location: path.dirname(e.path).slice(0, 1000), whenMs: e.whenMs }),
+      );
+    }),
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Registration, with Electron's ipcMain passed in (typed by the little we use)
+
+export interface IpcMainLike {
+  handle(channel: string, listener: (event: IpcEventLike, payload: unknown) => unknown): void;
+}
+
+export interface IpcEventLike {
+  senderFrame?: { url: string } | null;
+}
+
+/**
+ * Registers one handler per allowlisted channel. Calls from any frame whose URL the app did not
+ * load (an iframe, a page navigated elsewhere) get a failure instead of an answer.
+ */
+export function registerHostHandlers(ipc: IpcMainLike, handlers: HostHandlers, isTrustedUrl: (url: string) => boolean): string[] {
+  const channels: string[] = [];
+  for (const method of Object.keys(HOST_CHANNELS) as HostMethod[]) {
+    const channel = HOST_CHANNELS[method];
+    if (methodForChannel(channel) !== method) throw new Error(`Channel table is inconsistent at ${method}.`);
+    ipc.handle(channel, (event, payload) => {
+      const url = event.senderFrame?.url ?? '';
+      if (!isTrustedUrl(url)) return hostFailure('host-refused', 'This request did not come from the Tallyglyph window.');
+      return handlers[method](payload);
+    });
+    channels.push(channel);
+  }
+  return channels;
+}
+
+/** True for the app's own pages: the built files in `rendererDir`, or the dev server while developing. */
+export function trustedUrlChecker(options: { rendererDir: string; devServerUrl?: string | null }): (url: string) => boolean {
+  const dir = path.resolve(options.rendererDir);
+  let devOrigin: string | null = null;
+  if (options.devServerUrl) {
+    try {
+      devOrigin = new URL(options.devServerUrl).origin;
+    } catch {
+      devOrigin = null;
+    }
+  }
+  return (url: string) => {
+    let parsed: URL;
+    try {
+      parsed = new URL(url);
+    } catch {
+      return false;
+    }
+    if (devOrigin && parsed.origin === devOrigin) return true;
+    if (parsed.protocol !== 'file:') return false;
+    const filePath = path.resolve(decodeURIComponent(parsed.pathname));
+    return filePath === dir || filePath.startsWith(dir + path.sep);
+  };
+}
+
+// ---------------------------------------------------------------------------------------------
+// Menu, as plain data: main.ts turns it into an Electron menu; tests check the accelerators.
+
+export type MenuItemSpec =
+  | { label: string; command: MenuCommand; accelerator?: string }
+  | { role: 'quit' | 'cut' | 'copy' | 'paste' | 'selectAll' | 'reload' | 'toggleDevTools' | 'resetZoom' | 'zoomIn' | 'zoomOut' | 'togglefullscreen' | 'about' }
+  | { separator: true };
+
+export interface MenuSpec {
+  label: string;
+  items: MenuItemSpec[];
+}
+
+/**
+ * Accelerators use Electron's CmdOrCtrl, so Cmd on macOS and Ctrl elsewhere. Undo and redo are our
+ * document history, not the text field's, so they are commands rather than the built-in roles.
+ */
+export function menuTemplate(options: { isMac: boolean; devTools: boolean }): MenuSpec[] {
+  const menus: MenuSpec[] = [];
+  if (options.isMac) menus.push({ label: 'Tallyglyph', items: [{ role: 'about' }, { separator: true }, { role: 'quit' }] });
+  menus.push({
+    label: 'File',
+    items: [
+      { label: 'Open Chart…', command: 'open', accelerator: 'CmdOrCtrl+O' },
+      { separator: true },
+      { label: 'Save', command: 'save', accelerator: 'CmdOrCtrl+S' },
+      { label: 'Save As…', command: 'save-as', accelerator: 'Shift+CmdOrCtrl+S' },
+      { separator: true },
+      { label: 'Export SVG…', command: 'export-svg', accelerator: 'CmdOrCtrl+E' },
+      { label: 'Export PNG…', command: 'export-png', accelerator: 'Shift+CmdOrCtrl+E' },
+      ...(options.isMac ? [] : ([{ separator: true }, { role: 'quit' }] as MenuItemSpec[])),
+    ],
+  });
+  menus.push({
+    label: 'Edit',
+    items: [
+      { label: 'Undo', command: 'undo', accelerator: 'CmdOrCtrl+Z' },
+      { label: 'Redo', command: 'redo', accelerator: 'Shift+CmdOrCtrl+Z' },
+      { separator: true },
+      { role: 'cut' },
+      { role: 'copy' },
+      { role: 'paste' },
+      { role: 'selectAll' },
+    ],
+  });
+  menus.push({
+    label: 'View',
+    items: [
+      { role: 'resetZoom' },
+      { role: 'zoomIn' },
+      { role: 'zoomOut' },
+      { separator: true },
+      { role: 'togglefullscreen' },
+      ...(options.devTools ? ([{ separator: true }, { role: 'reload' }, { role: 'toggleDevTools' }] as MenuItemSpec[]) : []),
+    ],
+  });
+  return menus;
+}

@@ -1,0 +1,99 @@
+// Electron main process, kept thin: one window, the menu, native dialogs, and the host handlers
+// from ipcHandlers.ts (which hold all the logic and know nothing of Electron).
+
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { app, BrowserWindow, dialog, ipcMain, Menu, shell, type MenuItemConstructorOptions } from 'electron';
+import { HOST_EVENT_MENU_COMMAND } from '../../shared-core/host';
+import { createHostHandlers, exportRefusal, FILE_FILTERS, menuTemplate, registerHostHandlers, trustedUrlChecker, type DialogPort, type MenuSpec } from './ipcHandlers';
+
+const here = path.dirname(fileURLToPath(import.meta.url));
+const rendererDir = path.join(here, '../renderer');
+const preloadPath = path.join(here, '../preload/index.cjs');
+const devServerUrl = process.env.ELECTRON_RENDERER_URL ?? null;
+
+let mainWindow: BrowserWindow | null = null;
+
+function electronDialogs(): DialogPort {
+  return {
+    async chooseOpenPath() {
+      const options = { properties: ['openFile' as const], filters: [FILE_FILTERS.chart, { name: 'All files', extensions: ['*'] }] };
+      const result = mainWindow ? await dialog.showOpenDialog(mainWindow, options) : await dialog.showOpenDialog(options);
+      return result.canceled || result.filePaths.length === 0 ? null : result.filePaths[0];
+    },
+    async chooseSavePath({ suggestedName, kind, folder }) {
+      const options = { defaultPath: path.join(folder ?? app.getPath('documents'), suggestedName), filters: [FILE_FILTERS[kind]] };
+      const result = mainWindow ? await dialog.showSaveDialog(mainWindow, options) : await dialog.showSaveDialog(options);
+      return result.canceled || !result.filePath ? null : result.filePath;
+    },
+  };
+}
+
+function buildMenu(spec: MenuSpec[]): Menu {
+  const send = (command: string) => mainWindow?.webContents.send(HOST_EVENT_MENU_COMMAND, { command });
+  const template: MenuItemConstructorOptions[] = spec.map((menu) => ({
+    label: menu.label,
+    submenu: menu.items.map((item): MenuItemConstructorOptions => {
+      if ('separator' in item) return { type: 'separator' };
+      if ('role' in item) return { role: item.role };
+      return { label: item.label, accelerator: item.accelerator, click: () => send(item.command) };
+    }),
+  }));
+  return Menu.buildFromTemplate(template);
+}
+
+function createWindow(): void {
+  mainWindow = new BrowserWindow({
+    width: 1440,
+    height: 900,
+    minWidth: 1024,
+    minHeight: 640,
+    show: false,
+    title: 'Tallyglyph',
+    backgroundColor: '#f4f5f2',
+    webPreferences: {
+      preload: preloadPath,
+      contextIsolation: true,
+      sandbox: true,
+      nodeIntegration: false,
+      webSecurity: true,
+      spellcheck: false,
+    },
+  });
+  mainWindow.once('ready-to-show', () => mainWindow?.show());
+  mainWindow.on('closed', () => {
+    mainWindow = null;
+  });
+  if (devServerUrl) void mainWindow.loadURL(devServerUrl);
+  else void mainWindow.loadFile(path.join(rendererDir, 'index.html'));
+}
+
+// The window shows only our own pages: links open in the system browser, navigation elsewhere is refused.
+app.on('web-contents-created', (_event, contents) => {
+  const trusted = trustedUrlChecker({ rendererDir, devServerUrl });
+  contents.on('will-navigate', (event, url) => {
+    if (!trusted(url)) event.preventDefault();
+  });
+  contents.setWindowOpenHandler(({ url }) => {
+    if (url.startsWith('https:')) void shell.openExternal(url);
+    return { action: 'deny' };
+  });
+});
+
+app.whenReady().then(() => {
+  const handlers = createHostHandlers({
+    dialogs: electronDialogs(),
+    recentFile: path.join(app.getPath('userData'), 'recent.json'),
+    checkExport: exportRefusal,
+  });
+  registerHostHandlers(ipcMain, handlers, trustedUrlChecker({ rendererDir, devServerUrl }));
+  Menu.setApplicationMenu(buildMenu(menuTemplate({ isMac: process.platform === 'darwin', devTools: !app.isPackaged })));
+  createWindow();
+  app.on('activate', () => {
+    if (BrowserWindow.getAllWindows().length === 0) createWindow();
+  });
+});
+
+app.on('window-all-closed', () => {
+  if (process.platform !== 'darwin') app.quit();
+});

@@ -1,0 +1,54 @@
+// Preload: exposes the host contract to the page as `window.tallyglyphHost`, and nothing else.
+// Each call is checked before it is sent and each reply when it arrives (the main process checks
+// again on its side), and only allowlisted channels are ever used.
+
+import { contextBridge, ipcRenderer } from 'electron';
+import {
+  HOST_CHANNELS,
+  HOST_EVENT_MENU_COMMAND,
+  HOST_GLOBAL_NAME,
+  failureFromError,
+  parseHostRequest,
+  parseHostResult,
+  parseMenuCommand,
+  type HostApi,
+  type HostMethod,
+  type HostResult,
+  type HostValue,
+  type MenuCommand,
+} from '../../shared-core/host';
+
+async function call<M extends HostMethod>(method: M, request: unknown): Promise<HostResult<HostValue<M>>> {
+  let checked: unknown;
+  try {
+    checked = parseHostRequest(method, request);
+  } catch (e) {
+    return failureFromError(e);
+  }
+  try {
+    return parseHostResult(method, await ipcRenderer.invoke(HOST_CHANNELS[method], checked));
+  } catch (e) {
+    return failureFromError(e);
+  }
+}
+
+const host: HostApi = {
+  getCapabilities: () => call('getCapabilities', {}),
+  openChart: (request) => call('openChart', request),
+  saveChart: (request) => call('saveChart', request),
+  exportSvg: (request) => call('exportSvg', request),
+  exportPng: (request) => call('exportPng', request),
+  listRecent: () => call('listRecent', {}),
+  onMenuCommand(listener: (command: MenuCommand) => void) {
+    const wrapped = (_event: unknown, payload: unknown) => {
+      const command = parseMenuCommand(payload);
+      if (command) listener(command);
+    };
+    ipcRenderer.on(HOST_EVENT_MENU_COMMAND, wrapped);
+    return () => {
+      ipcRenderer.removeListener(HOST_EVENT_MENU_COMMAND, wrapped);
+    };
+  },
+};
+
+contextBridge.exposeInMainWorld(HOST_GLOBAL_NAME, host);

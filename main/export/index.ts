@@ -1,0 +1,14 @@
+// Public door of export: verified SVG and PNG files, and the pixel re-check behind PNG export.
+export { exportChart, buildExport, exportFromRender, formatFromPath, DEFAULT_PPI, type ExportFormat, type ExportOptions, type ExportResult, type BuiltExport } from './exportChart';
+export {
+  verifyRaster,
+  estimateEdgeError,
+  thresholdEdgeError,
+  worstCaseEdgeError,
+  hideElements,
+  marksOnlySvg,
+  marksOnlyPartSvg,
+  type RasterCheck,
+  type RasterCheckOptions,
+  type RasterMarkCheck,
+} from './verifyRaster';

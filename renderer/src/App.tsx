@@ -1,0 +1,442 @@
+// The editor window: data and drawing controls on the left, the written chart in the middle, the
+// honesty check on the right. Every change is a named action; files go through the host.
+import { useCallback, useEffect, useMemo, useReducer, useRef, useState, type ReactElement } from 'react';
+import { PAGE_UNIT_MM } from '../../shared-core/document';
+import { isTallyError } from '../../shared-core/errors';
+import { safeFileName, type HostApi, type HostCapabilities, type MenuCommand, type RecentChart } from '../../shared-core/host';
+import { ACTION_NAMES, type Action } from './editor/actions';
+import { documentStem, fromChartDocument, rowForProblemPath, toChartDocument, type EditorDocument, type RowProblem } from './editor/editorDocument';
+import { canRedo, canUndo, createHistory, historyReducer } from './editor/history';
+import { demoCharts, defaultPalette } from './demoCharts';
+import { keyOfDocument, useChartRender } from './render/useChartRender';
+import { isMacPlatform, shortcutCommand, shortcutLabel } from './shortcuts';
+import { DataTable } from './components/DataTable';
+import { DrawingPanel } from './components/DrawingPanel';
+import { HonestyPanel, type HonestyState } from './components/HonestyPanel';
+import { BrandMark, Icon } from './components/Icon';
+import { PagePanel } from './components/PagePanel';
+import { Preview } from './components/Preview';
+
+interface FileInfo {
+  documentId: string | null;
+  name: string;
+  demoId: string | null;
+}
+
+interface Notice {
+  id: number;
+  text: string;
+  tone: 'info' | 'error';
+}
+
+const PPI_CHOICES = [150, 300, 600];
+
+function plural(n: number, word: string): string {
+  return `${n} ${word}${n === 1 ? '' : 's'}`;
+}
+
+export function App({ host }: { host: HostApi }): ReactElement {
+  const demos = useMemo(() => demoCharts(), []);
+  const palette = useMemo(() => defaultPalette(), []);
+  const isMac = useMemo(() => isMacPlatform(), []);
+  const [history, send] = useReducer(historyReducer, demos[0].document, (d: unknown) => createHistory(fromChartDocument(d)));
+  const doc = history.present;
+  const [file, setFile] = useState<FileInfo>({ documentId: null, name: demos[0].name, demoId: demos[0].id });
+  const [savedDoc, setSavedDoc] = useState<EditorDocument>(doc);
+  const [caps, setCaps] = useState<HostCapabilities | null>(null);
+  const [ppi, setPpi] = useState(300);
+  const [notice, setNotice] = useState<Notice | null>(null);
+  const [recent, setRecent] = useState<RecentChart[] | null>(null);
+  const [working, setWorking] = useState<string | null>(null);
+  const noticeId = useRef(0);
+  const recentWrap = useRef<HTMLDivElement>(null);
+
+  // The recent list closes on a click elsewhere or Escape, like any menu.
+  useEffect(() => {
+    if (recent === null) return;
+    const onDown = (e: MouseEvent) => {
+      if (!recentWrap.current?.contains(e.target as Node)) setRecent(null);
+    };
+    const onKey = (e: KeyboardEvent) => {
+      if (e.key === 'Escape') setRecent(null);
+    };
+    document.addEventListener('mousedown', onDown);
+    document.addEventListener('keydown', onKey);
+    return () => {
+      document.removeEventListener('mousedown', onDown);
+      document.removeEventListener('keydown', onKey);
+    };
+  }, [recent]);
+
+  const dispatch = useCallback((action: Action) => send({ type: 'perform', action }), []);
+  const seal = useCallback(() => send({ type: 'seal' }), []);
+  const say = useCallback((text: string, tone: 'info' | 'error' = 'info') => {
+    noticeId.current += 1;
+    setNotice({ id: noticeId.current, text, tone });
+  }, []);
+
+  useEffect(() => {
+    let live = true;
+    void host.getCapabilities().then((r) => {
+      if (live && r.ok) setCaps(r.value);
+    });
+    return () => {
+      live = false;
+    };
+  }, [host]);
+
+  // ---- the chart document and its check
+
+  const conversion = useMemo(() => toChartDocument(doc), [doc]);
+  const render = useChartRender(conversion.document);
+  const currentKey = useMemo(() => keyOfDocument(conversion.document), [conversion.document]);
+  const outcome = render.outcome;
+  const current = outcome !== null && currentKey !== null && render.outcomeKey === currentKey;
+
+  // Problems from the document check (after the table's own), tied to cells where they name one.
+  const rowProblems: RowProblem[] = useMemo(() => {
+    if (conversion.rowProblems.length > 0) return conversion.rowProblems;
+    if (current && outcome?.kind === 'invalid') {
+      return outcome.problems.flatMap((p) => {
+        const at = rowForProblemPath(doc, p.path);
+        return at ? [{ ...at, message: p.message }] : [];
+      });
+    }
+    return [];
+  }, [conversion.rowProblems, current, outcome, doc]);
+
+  const tableProblems = [
+    ...conversion.rowProblems.map((p) => {
+      const index = doc.rows.findIndex((r) => r.id === p.rowId);
+      return `Row ${index + 1}, ${p.field}: ${p.message}`;
+    }),
+    ...conversion.otherProblems,
+  ];
+
+  const exportSvgText = current && outcome?.kind === 'checked' && outcome.honesty.pass ? outcome.svg : null;
+
+  const exportBlock: string | null = (() => {
+    if (tableProblems.length > 0) return `Fix the table first. ${tableProblems[0]}`;
+    if (!current || render.busy) return 'Checking the latest change…';
+    if (!outcome) return 'Checking the chart…';
+    if (outcome.kind === 'invalid') return `The chart document has a problem: ${outcome.message}`;
+    if (outcome.kind === 'failed') return outcome.message;
+    if (!outcome.honesty.pass) return `Export is blocked: ${outcome.honesty.reason ?? 'the chart did not pass the honesty check.'}`;
+    if (!outcome.svg) return 'The chart could not be written.';
+    return null;
+  })();
+
+  const honestyState: HonestyState = (() => {
+    const previous = outcome?.kind === 'checked' ? outcome.honesty : null;
+    if (tableProblems.length > 0) return { kind: 'waiting', title: 'Waiting for the table', problems: tableProblems, previous };
+    if (!outcome) return { kind: 'pending' };
+    if (outcome.kind === 'invalid') return current ? { kind: 'waiting', title: 'The chart document has a problem', problems: outcome.problems.length ? outcome.problems.map((p) => `${p.path}: ${p.message}`) : [outcome.message], previous: null } : { kind: 'pending' };
+    if (outcome.kind === 'failed') return { kind: 'failed', title: 'The chart could not be drawn', message: outcome.message };
+    return { kind: 'checked', honesty: outcome.honesty, current };
+  })();
+
+  const previewSvg = outcome?.kind === 'checked' ? outcome.svg : null;
+  const overlay: Parameters<typeof Preview>[0]['overlay'] = (() => {
+    if (tableProblems.length > 0) return { tone: 'stale', title: 'Showing the last valid chart', text: 'Fix the highlighted cells to update it.' };
+    if (outcome?.kind === 'failed') return { tone: 'error', title: 'The chart could not be drawn', text: outcome.message };
+    if (outcome?.kind === 'invalid' && current) return { tone: 'error', title: 'The chart document has a problem', text: outcome.message };
+    if (outcome?.kind === 'checked' && !outcome.honesty.pass) return { tone: 'refused', title: 'Refused: not exportable', text: 'This is the file as written; the honesty check explains what is wrong.' };
+    return null;
+  })();
+
+  // ---- commands
+
+  const exportAs = useCallback(
+    async (kind: 'svg' | 'png') => {
+      if (exportBlock || !exportSvgText) {
+        say(exportBlock ?? 'Nothing to export yet.', 'error');
+        return;
+      }
+      if (kind === 'png' && caps && !caps.rasterizesPng) {
+        say('This host cannot make PNG files.', 'error');
+        return;
+      }
+      const suggestedName = safeFileName(documentStem(doc), kind);
+      setWorking(kind === 'png' ? `Making the PNG at ${ppi} ppi…` : 'Exporting the SVG…');
+      try {
+        const result = kind === 'svg' ? await host.exportSvg({ svg: exportSvgText, suggestedName }) : await host.exportPng({ svg: exportSvgText, suggestedName, ppi });
+        if (!result.ok) say(result.error.message, 'error');
+        else if (result.value) say(`Exported ${result.value.name} (${(result.value.bytes / 1024).toFixed(result.value.bytes < 10_240 ? 1 : 0)} KB).`);
+      } finally {
+        setWorking(null);
+      }
+    },
+    [exportBlock, exportSvgText, caps, doc, ppi, host, say],
+  );
+
+  const save = useCallback(
+    async (saveAs: boolean) => {
+      if (!conversion.document) {
+        say(`Not saved: fix the table first. ${tableProblems[0] ?? ''}`.trim(), 'error');
+        return;
+      }
+      const text = JSON.stringify(conversion.document, null, 2) + '\n';
+      const result = await host.saveChart({ text, suggestedName: safeFileName(file.documentId ? file.name : documentStem(doc), 'json'), documentId: file.documentId, saveAs });
+      if (!result.ok) say(result.error.message, 'error');
+      else if (result.value) {
+        setFile({ documentId: result.value.documentId, name: result.value.name, demoId: null });
+        setSavedDoc(doc);
+        say(`Saved ${result.value.name}.`);
+      }
+    },
+    [conversion.document, tableProblems, host, file, doc, say],
+  );
+
+  const loadText = useCallback(
+    (name: string, text: string, documentId: string | null) => {
+      let next: EditorDocument;
+      try {
+        next = fromChartDocument(JSON.parse(text));
+      } catch (e) {
+        const why = isTallyError(e) ? e.message : e instanceof SyntaxError ? `it is not valid JSON (${e.message})` : String(e);
+        say(`Could not open ${name}: ${why}`, 'error');
+        return;
+      }
+      dispatch({ type: 'load-document', document: next });
+      setFile({ documentId, name, demoId: null });
+      setSavedDoc(next);
+      say(`Opened ${name}.`);
+    },
+    [dispatch, say],
+  );
+
+  const open = useCallback(
+    async (documentId?: string) => {
+      const result = await host.openChart(documentId ? { documentId } : {});
+      if (!result.ok) say(result.error.message, 'error');
+      else if (result.value) loadText(result.value.name, result.value.text, result.value.documentId);
+    },
+    [host, loadText, say],
+  );
+
+  const loadDemo = useCallback(
+    (id: string) => {
+      const demo = demos.find((d) => d.id === id);
+      if (!demo) return;
+      const next = fromChartDocument(demo.document);
+      dispatch({ type: 'load-document', document: next });
+      setFile({ documentId: null, name: demo.name, demoId: demo.id });
+      setSavedDoc(next);
+    },
+    [demos, dispatch],
+  );
+
+  const commands: Record<MenuCommand, () => void> = {
+    open: () => void open(),
+    save: () => void save(false),
+    'save-as': () => void save(true),
+    'export-svg': () => void exportAs('svg'),
+    'export-png': () => void exportAs('png'),
+    undo: () => send({ type: 'undo' }),
+    redo: () => send({ type: 'redo' }),
+  };
+  const commandsRef = useRef(commands);
+  commandsRef.current = commands;
+
+  useEffect(() => host.onMenuCommand((c) => commandsRef.current[c]()), [host]);
+
+  useEffect(() => {
+    if (!caps || caps.menuShortcuts) return;
+    const onKey = (e: KeyboardEvent) => {
+      const command = shortcutCommand(e, isMac);
+      if (!command) return;
+      e.preventDefault();
+      e.stopPropagation();
+      commandsRef.current[command]();
+    };
+    window.addEventListener('keydown', onKey, true);
+    return () => window.removeEventListener('keydown', onKey, true);
+  }, [caps, isMac]);
+
+  const dirty = doc !== savedDoc;
+  useEffect(() => {
+    document.title = `${dirty ? '• ' : ''}${file.name} — Tallyglyph`;
+  }, [dirty, file.name]);
+
+  useEffect(() => {
+    if (!notice) return;
+    const t = setTimeout(() => setNotice((n) => (n && n.id === notice.id ? null : n)), notice.tone === 'error' ? 9000 : 4500);
+    return () => clearTimeout(t);
+  }, [notice]);
+
+  const undoTitle = canUndo(history) ? `Undo ${ACTION_NAMES[history.past[history.past.length - 1].action]} (${shortcutLabel('undo', isMac)})` : 'Nothing to undo';
+  const redoTitle = canRedo(history) ? `Redo ${ACTION_NAMES[history.future[0].action]} (${shortcutLabel('redo', isMac)})` : 'Nothing to redo';
+  const pageMm = { w: doc.page.width * PAGE_UNIT_MM[doc.page.unit], h: doc.page.height * PAGE_UNIT_MM[doc.page.unit] };
+  const pageLabel = `${trimNumber(doc.page.width)} × ${trimNumber(doc.page.height)} ${doc.page.unit}${doc.page.unit !== 'mm' ? ` (${trimNumber(pageMm.w, 1)} × ${trimNumber(pageMm.h, 1)} mm)` : ''}${doc.layout.bleedMm > 0 ? ` + ${trimNumber(doc.layout.bleedMm)} mm bleed` : ''}`;
+  const chosenUnit = outcome?.kind === 'checked' && outcome.unit ? outcome.unit.value : null;
+  const pngOffered = caps?.rasterizesPng ?? false;
+
+  return (
+    <div className="app">
+      <header className="topbar">
+        <div className="brand">
+          <BrandMark />
+          <span className="brand-name">Tallyglyph</span>
+        </div>
+        <div className="doc-name" title={file.name} data-testid="doc-name">
+          <span className="doc-name-text">{file.name}</span>
+          {dirty && <span className="dirty-dot" title="Unsaved changes" aria-label="Unsaved changes" />}
+        </div>
+        <div className="toolbar-group">
+          <label className="demo-picker">
+            <span>Demo</span>
+            <select value={file.demoId ?? ''} onChange={(e) => loadDemo(e.target.value)} aria-label="Demo chart" data-testid="demo-picker">
+              {file.demoId === null && <option value="">Choose a demo…</option>}
+              {demos.map((d) => (
+                <option key={d.id} value={d.id} title={d.name}>
+                  {demoLabel(d.id, d.document)}
+                </option>
+              ))}
+            </select>
+          </label>
+        </div>
+        <div className="toolbar-group">
+          <button type="button" className="tool" onClick={() => void open()} title={`Open a chart document (${shortcutLabel('open', isMac)})`}>
+            <Icon name="open" /> Open
+          </button>
+          <div className="recent-wrap" ref={recentWrap}>
+            <button
+              type="button"
+              className="tool"
+              aria-haspopup="menu"
+              aria-expanded={recent !== null}
+              onClick={async () => {
+                if (recent !== null) return setRecent(null);
+                const r = await host.listRecent();
+                setRecent(r.ok ? r.value : []);
+              }}
+              title="Recently opened or saved charts"
+            >
+              <Icon name="recent" /> Recent
+            </button>
+            {recent !== null && (
+              <div className="popover recent-list" role="menu">
+                {recent.length === 0 && <p className="empty-note">No recent charts yet.</p>}
+                {recent.map((r) => (
+                  <button key={r.documentId} type="button" role="menuitem" className="recent-item" onClick={() => {
+                    setRecent(null);
+                    void open(r.documentId);
+                  }}>
+                    <span className="recent-name">{r.name}</span>
+                    <span className="recent-where">{r.location}</span>
+                  </button>
+                ))}
+              </div>
+            )}
+          </div>
+          <button type="button" className="tool" onClick={() => void save(false)} title={`Save the chart document (${shortcutLabel('save', isMac)})`} data-testid="save">
+            <Icon name="save" /> Save
+          </button>
+        </div>
+        <div className="toolbar-group">
+          <button type="button" className="tool icon-only" onClick={() => send({ type: 'undo' })} disabled={!canUndo(history)} title={undoTitle} aria-label="Undo" data-testid="undo">
+            <Icon name="undo" />
+          </button>
+          <button type="button" className="tool icon-only" onClick={() => send({ type: 'redo' })} disabled={!canRedo(history)} title={redoTitle} aria-label="Redo" data-testid="redo">
+            <Icon name="redo" />
+          </button>
+        </div>
+        <span className="spacer" />
+        <div className="export-group">
+          {exportBlock && !render.busy && current && (
+            <span className="export-blocked" title={exportBlock} data-testid="export-blocked">
+              Export blocked
+            </span>
+          )}
+          {pngOffered && (
+            <>
+              <select className="ppi-select" value={ppi} onChange={(e) => setPpi(Number(e.target.value))} aria-label="PNG resolution" title="PNG resolution in pixels per inch (300 is usual for print)">
+                {PPI_CHOICES.map((p) => (
+                  <option key={p} value={p}>
+                    {p} ppi
+                  </option>
+                ))}
+              </select>
+              <button type="button" className="button" disabled={exportBlock !== null || working !== null} title={exportBlock ?? `Export a PNG at ${ppi} ppi (${shortcutLabel('export-png', isMac)})`} onClick={() => void exportAs('png')} data-testid="export-png">
+                <Icon name="export" /> PNG
+              </button>
+            </>
+          )}
+          <button type="button" className="button primary" disabled={exportBlock !== null || working !== null} title={exportBlock ?? `Export the SVG (${shortcutLabel('export-svg', isMac)})`} onClick={() => void exportAs('svg')} data-testid="export-svg">
+            <Icon name="export" /> Export SVG
+          </button>
+        </div>
+      </header>
+
+      <main className="workspace">
+        <aside className="panel editor" aria-label="Chart settings">
+          <details className="section" open>
+            <summary>
+              <span>Data</span>
+              <span className="summary-meta">{plural(doc.rows.length, 'row')}</span>
+            </summary>
+            <div className="section-body">
+              <div className="field">
+                <label htmlFor="chart-title">Title</label>
+                <input id="chart-title" value={doc.title} placeholder="What the chart shows" onChange={(e) => dispatch({ type: 'set-title', title: e.target.value })} onBlur={seal} />
+              </div>
+              <div className="field">
+                <label htmlFor="chart-source">Source line</label>
+                <input id="chart-source" value={doc.source} placeholder="Where the numbers come from" onChange={(e) => dispatch({ type: 'set-source', source: e.target.value })} onBlur={seal} />
+              </div>
+              <DataTable doc={doc} problems={rowProblems} dispatch={dispatch} seal={seal} onNotice={say} />
+            </div>
+          </details>
+          <details className="section" open>
+            <summary>
+              <span>Drawing</span>
+              <span className="summary-meta">{modeName({ encoding: doc.encoding })}</span>
+            </summary>
+            <div className="section-body">
+              <DrawingPanel doc={doc} dispatch={dispatch} seal={seal} chosenUnit={chosenUnit} defaultColors={palette} />
+            </div>
+          </details>
+          <details className="section" open>
+            <summary>
+              <span>Page</span>
+              <span className="summary-meta">{trimNumber(doc.page.width)} × {trimNumber(doc.page.height)} {doc.page.unit}</span>
+            </summary>
+            <div className="section-body">
+              <PagePanel doc={doc} dispatch={dispatch} />
+            </div>
+          </details>
+        </aside>
+
+        <Preview svg={previewSvg} busy={render.busy || working !== null} overlay={overlay} pageLabel={pageLabel} elapsedMs={current ? render.elapsedMs : null} />
+
+        <HonestyPanel state={honestyState} ppi={ppi} />
+      </main>
+
+      <footer className="statusbar">
+        <span className={notice ? `notice ${notice.tone}` : 'notice'} role="status" aria-live="polite" data-testid="notice">
+          {working ?? notice?.text ?? ''}
+        </span>
+        <span className="spacer" />
+        <span className="status-meta">
+          {caps ? (caps.kind === 'browser' ? 'Browser: files download, PNG drawn by the browser' : 'Desktop') : ''}
+        </span>
+      </footer>
+    </div>
+  );
+}
+
+function trimNumber(value: number, decimals = 2): string {
+  return String(Number(value.toFixed(decimals)));
+}
+
+/** "Repeat · bike share" from the demo's file name "repeat-bike-share". */
+function demoLabel(id: string, doc: unknown): string {
+  const mode = modeName(doc);
+  const words = id.replace(/-/g, ' ').replace(new RegExp(`^${mode}\\s+`, 'i'), '');
+  return `${mode} · ${words}`;
+}
+
+function modeName(doc: unknown): string {
+  const mode = (doc as { encoding?: { mode?: string } }).encoding?.mode ?? '';
+  return mode ? mode[0].toUpperCase() + mode.slice(1) : 'Chart';
+}

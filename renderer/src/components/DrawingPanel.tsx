@@ -1,0 +1,193 @@
+// How the numbers become glyphs: mode, what one glyph stands for, the glyph, rounding and colours.
+import { useRef, useState, type ReactElement } from 'react';
+import type { EncodingMode } from '../../../shared-core/document';
+import type { Action } from '../editor/actions';
+import type { EditorDocument } from '../editor/editorDocument';
+import { formatNumber } from '../editor/editorDocument';
+import { GlyphPicker, GlyphThumb } from './GlyphPicker';
+import { NumberField } from './NumberField';
+
+const MODES: { mode: EncodingMode; name: string; says: string }[] = [
+  { mode: 'repeat', name: 'Repeat', says: 'Rows of glyphs; each glyph is a fixed amount.' },
+  { mode: 'stack', name: 'Stack', says: 'Columns of glyphs rising from one baseline.' },
+  { mode: 'scale', name: 'Scale', says: 'One glyph per row, its ink area in proportion to the value.' },
+  { mode: 'fill', name: 'Fill', says: 'Each glyph filled by ink to its share.' },
+];
+
+interface DrawingPanelProps {
+  doc: EditorDocument;
+  dispatch: (action: Action) => void;
+  seal: () => void;
+  /** The unit the layout picked when the document leaves it automatic. */
+  chosenUnit: number | null;
+  defaultColors: string[];
+}
+
+export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }: DrawingPanelProps): ReactElement {
+  const [picking, setPicking] = useState(false);
+  const glyphButton = useRef<HTMLButtonElement>(null);
+  const enc = doc.encoding;
+  const counted = enc.mode === 'repeat' || enc.mode === 'stack';
+  const automatic = enc.unit === undefined;
+  const colors = doc.layout.colors ?? defaultColors;
+  const customColors = doc.layout.colors !== undefined;
+  const modeInfo = MODES.find((m) => m.mode === enc.mode);
+
+  return (
+    <div className="drawing-panel">
+      <div className="field">
+        <span className="field-label" id="mode-label">Mode</span>
+        <div className="segmented" role="radiogroup" aria-labelledby="mode-label">
+          {MODES.map((m) => (
+            <button
+              key={m.mode}
+              type="button"
+              role="radio"
+              aria-checked={enc.mode === m.mode}
+              className={enc.mode === m.mode ? 'segment active' : 'segment'}
+              title={m.says}
+              onClick={() => dispatch({ type: 'set-mode', mode: m.mode })}
+            >
+              {m.name}
+            </button>
+          ))}
+        </div>
+        {modeInfo && <p className="field-hint">{modeInfo.says}</p>}
+      </div>
+
+      <div className="field glyph-field">
+        <span className="field-label">Glyph</span>
+        <div className="glyph-choice">
+          <button ref={glyphButton} type="button" className="glyph-current" onClick={() => setPicking(!picking)} aria-haspopup="dialog" aria-expanded={picking} data-testid="chart-glyph">
+            <GlyphThumb glyph={enc.glyph} size={28} />
+            <span className="glyph-current-name">{typeof enc.glyph === 'string' ? enc.glyph : 'custom SVG'}</span>
+            <span className="glyph-current-action">Change…</span>
+          </button>
+          {picking && (
+            <GlyphPicker
+              label="Chart glyph"
+              anchor={glyphButton}
+              value={enc.glyph}
+              onChoose={(name) => {
+                dispatch({ type: 'set-glyph', glyph: name });
+                setPicking(false);
+              }}
+              onClose={() => setPicking(false)}
+            />
+          )}
+        </div>
+      </div>
+
+      {counted && (
+        <div className="field-group">
+          <div className="field">
+            <span className="field-label">One glyph stands for</span>
+            <label className="check corner">
+              <input type="checkbox" checked={automatic} onChange={(e) => dispatch({ type: 'set-unit', unit: e.target.checked ? null : (chosenUnit ?? 1) })} data-testid="unit-automatic" />
+              Choose automatically
+            </label>
+          </div>
+          <div className="field-row">
+            {automatic ? (
+              <div className="field number-field normal">
+                <label>Amount</label>
+                <p className="readout" data-testid="unit-readout">{chosenUnit !== null ? formatNumber(chosenUnit) : '…'}</p>
+              </div>
+            ) : (
+              <NumberField label="Amount" value={enc.unit ?? 1} testId="unit-input" check={(v) => (v > 0 ? null : 'The amount must be greater than 0.')} onCommit={(v) => dispatch({ type: 'set-unit', unit: v })} />
+            )}
+            <div className="field">
+              <label htmlFor="unit-name">Counting</label>
+              <input id="unit-name" value={enc.unitName ?? ''} placeholder="e.g. rides" onChange={(e) => dispatch({ type: 'set-unit-name', unitName: e.target.value })} onBlur={seal} />
+            </div>
+          </div>
+          <div className="field">
+            <span className="field-label" id="rounding-label">Remainders</span>
+            <div className="segmented" role="radiogroup" aria-labelledby="rounding-label">
+              <button type="button" role="radio" aria-checked={enc.rounding === 'ink-cut'} className={enc.rounding === 'ink-cut' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-rounding', rounding: 'ink-cut' })}>
+                Cut by ink
+              </button>
+              <button type="button" role="radio" aria-checked={enc.rounding === 'whole'} className={enc.rounding === 'whole' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-rounding', rounding: 'whole' })}>
+                Whole glyphs
+              </button>
+            </div>
+            <p className="field-hint">
+              {enc.rounding === 'ink-cut' ? 'A remainder of 0.4 shows 40% of a glyph’s ink.' : 'Each row is rounded to the nearest whole glyph; the check tells you what that costs.'}
+            </p>
+          </div>
+        </div>
+      )}
+
+      {enc.mode === 'repeat' && (
+        <div className="field">
+          <span className="field-label" id="arrangement-label">Arrangement</span>
+          <div className="segmented" role="radiogroup" aria-labelledby="arrangement-label">
+            <button type="button" role="radio" aria-checked={enc.arrangement === 'per-category'} className={enc.arrangement === 'per-category' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-arrangement', arrangement: 'per-category' })}>
+              A row per category
+            </button>
+            <button type="button" role="radio" aria-checked={enc.arrangement === 'shared-grid'} className={enc.arrangement === 'shared-grid' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-arrangement', arrangement: 'shared-grid' })}>
+              One shared grid
+            </button>
+          </div>
+        </div>
+      )}
+
+      {enc.mode === 'fill' && (
+        <div className="field">
+          <span className="field-label" id="fill-label">Full glyph means</span>
+          <div className="segmented" role="radiogroup" aria-labelledby="fill-label">
+            <button type="button" role="radio" aria-checked={enc.fillTo === 'max'} className={enc.fillTo === 'max' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-fill-to', fillTo: 'max' })}>
+              The largest value
+            </button>
+            <button type="button" role="radio" aria-checked={enc.fillTo === 'share'} className={enc.fillTo === 'share' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-fill-to', fillTo: 'share' })}>
+              A share of 1
+            </button>
+          </div>
+        </div>
+      )}
+
+      <div className="field">
+        <div className="field-label-row">
+          <span className="field-label">Colours</span>
+          {customColors && (
+            <button type="button" className="link-button" onClick={() => dispatch({ type: 'set-colors', colors: null })}>
+              Back to default
+            </button>
+          )}
+        </div>
+        <div className="swatches">
+          {colors.map((c, i) => (
+            <label key={i} className="swatch" title={`Colour ${i + 1}: ${c}`} style={{ background: c }}>
+              <input
+                type="color"
+                value={c.length === 7 ? c : '#000000'}
+                aria-label={`Colour ${i + 1}`}
+                onChange={(e) => {
+                  const next = [...colors];
+                  next[i] = e.target.value;
+                  dispatch({ type: 'set-colors', colors: next });
+                }}
+              />
+            </label>
+          ))}
+        </div>
+        <p className="field-hint">Colours go to categories in order. Marks print opaque.</p>
+      </div>
+
+      <div className="field">
+        <span className="field-label">Show</span>
+        <div className="checks">
+          <label className="check">
+            <input type="checkbox" checked={doc.layout.labels} onChange={(e) => dispatch({ type: 'set-show', what: 'labels', on: e.target.checked })} /> Labels
+          </label>
+          <label className="check">
+            <input type="checkbox" checked={doc.layout.valueLabels} onChange={(e) => dispatch({ type: 'set-show', what: 'valueLabels', on: e.target.checked })} /> Values
+          </label>
+          <label className="check">
+            <input type="checkbox" checked={doc.layout.legend} onChange={(e) => dispatch({ type: 'set-show', what: 'legend', on: e.target.checked })} /> Key
+          </label>
+        </div>
+      </div>
+    </div>
+  );
+}

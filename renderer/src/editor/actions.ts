@@ -1,0 +1,234 @@
+// Every change the editor can make, as a named action, and the pure perform(document, action)
+// that returns the next document. Nothing else changes a document.
+
+import { PAGE_UNIT_MM, type Arrangement, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
+import type { EditorDocument, EditorRow } from './editorDocument';
+import { parseTable } from './parseTable';
+
+export type Action =
+  | { type: 'load-document'; document: EditorDocument }
+  | { type: 'set-title'; title: string }
+  | { type: 'set-source'; source: string }
+  | { type: 'edit-label'; rowId: string; text: string }
+  | { type: 'edit-value'; rowId: string; text: string }
+  | { type: 'set-row-glyph'; rowId: string; glyph: string | null }
+  | { type: 'add-row'; afterRowId?: string }
+  | { type: 'remove-row'; rowId: string }
+  | { type: 'move-row'; rowId: string; by: -1 | 1 }
+  /** Pasted table text; from a row onward (overwriting, adding rows as needed) or replacing the table. */
+  | { type: 'paste-table'; text: string; atRowId?: string }
+  | { type: 'set-mode'; mode: EncodingMode }
+  | { type: 'set-unit'; unit: number | null }
+  | { type: 'set-unit-name'; unitName: string }
+  | { type: 'set-glyph'; glyph: string }
+  | { type: 'set-rounding'; rounding: Rounding }
+  | { type: 'set-arrangement'; arrangement: Arrangement }
+  | { type: 'set-fill-to'; fillTo: FillTo }
+  /** null: the default palette. */
+  | { type: 'set-colors'; colors: string[] | null }
+  | { type: 'set-page-size'; width: number; height: number }
+  | { type: 'set-page-unit'; unit: PageUnit }
+  | { type: 'set-margins'; margins: MarginsMm }
+  | { type: 'set-bleed'; bleedMm: number }
+  | { type: 'set-show'; what: 'labels' | 'valueLabels' | 'legend'; on: boolean };
+
+export type ActionType = Action['type'];
+
+/** Words for the undo and redo buttons' tooltips: "Undo change of value". */
+export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze({
+  'load-document': 'opening a chart',
+  'set-title': 'title change',
+  'set-source': 'source change',
+  'edit-label': 'label edit',
+  'edit-value': 'value edit',
+  'set-row-glyph': 'row glyph change',
+  'add-row': 'new row',
+  'remove-row': 'row removal',
+  'move-row': 'row move',
+  'paste-table': 'paste',
+  'set-mode': 'mode change',
+  'set-unit': 'unit change',
+  'set-unit-name': 'unit name change',
+  'set-glyph': 'glyph change',
+  'set-rounding': 'rounding change',
+  'set-arrangement': 'arrangement change',
+  'set-fill-to': 'fill change',
+  'set-colors': 'colour change',
+  'set-page-size': 'page size change',
+  'set-page-unit': 'page unit change',
+  'set-margins': 'margin change',
+  'set-bleed': 'bleed change',
+  'set-show': 'label setting',
+});
+
+const MAX_ROWS = 10_000;
+
+function newRow(doc: EditorDocument, fields: Partial<Omit<EditorRow, 'id'>> = {}): { row: EditorRow; next: number } {
+  const row: EditorRow = { id: `r${doc.nextRowNumber}`, label: '', valueText: '', ...fields };
+  return { row, next: doc.nextRowNumber + 1 };
+}
+
+function unusedLabel(rows: readonly EditorRow[]): string {
+  const used = new Set(rows.map((r) => r.label.trim()));
+  for (let n = rows.length + 1; ; n++) if (!used.has(`Category ${n}`)) return `Category ${n}`;
+}
+
+function mapRow(doc: EditorDocument, rowId: string, change: (row: EditorRow) => EditorRow): EditorDocument {
+  let changed = false;
+  const rows = doc.rows.map((r) => {
+    if (r.id !== rowId) return r;
+    const next = change(r);
+    if (next !== r) changed = true;
+    return next;
+  });
+  return changed ? { ...doc, rows } : doc;
+}
+
+/** Rounds a converted length so that 210 mm shows as 8.268 in, not 8.267716535433072. */
+function roundLength(value: number, unit: PageUnit): number {
+  const decimals = unit === 'in' ? 3 : unit === 'mm' ? 2 : 1;
+  return Number(value.toFixed(decimals));
+}
+
+function sameColors(a: readonly string[] | undefined, b: readonly string[] | undefined): boolean {
+  if (a === undefined || b === undefined) return a === b;
+  return a.length === b.length && a.every((c, i) => c === b[i]);
+}
+
+/**
+ * The document after an action. Returns the same object when nothing changes, so the history can
+ * tell a real change from a no-op. Values arrive already checked by the controls that send them;
+ * table text is kept exactly as typed (toChartDocument reports its problems).
+ */
+export function perform(doc: EditorDocument, action: Action): EditorDocument {
+  switch (action.type) {
+    case 'load-document':
+      return action.document;
+    case 'set-title':
+      return action.title === doc.title ? doc : { ...doc, title: action.title };
+    case 'set-source':
+      return action.source === doc.source ? doc : { ...doc, source: action.source };
+    case 'edit-label':
+      return mapRow(doc, action.rowId, (r) => (r.label === action.text ? r : { ...r, label: action.text }));
+    case 'edit-value':
+      return mapRow(doc, action.rowId, (r) => (r.valueText === action.text ? r : { ...r, valueText: action.text }));
+    case 'set-row-glyph':
+      return mapRow(doc, action.rowId, (r) => {
+        if ((r.glyph ?? null) === action.glyph) return r;
+        const { glyph: _old, ...rest } = r;
+        return action.glyph === null ? rest : { ...rest, glyph: action.glyph };
+      });
+    case 'add-row': {
+      if (doc.rows.length >= MAX_ROWS) return doc;
+      const { row, next } = newRow(doc, { label: unusedLabel(doc.rows), valueText: '' });
+      const at = action.afterRowId ? doc.rows.findIndex((r) => r.id === action.afterRowId) + 1 : doc.rows.length;
+      const rows = [...doc.rows];
+      rows.splice(at <= 0 ? doc.rows.length : at, 0, row);
+      return { ...doc, rows, nextRowNumber: next };
+    }
+    case 'remove-row': {
+      const rows = doc.rows.filter((r) => r.id !== action.rowId);
+      return rows.length === doc.rows.length ? doc : { ...doc, rows };
+    }
+    case 'move-row': {
+      const i = doc.rows.findIndex((r) => r.id === action.rowId);
+      const j = i + action.by;
+      if (i < 0 || j < 0 || j >= doc.rows.length) return doc;
+      const rows = [...doc.rows];
+      [rows[i], rows[j]] = [rows[j], rows[i]];
+      return { ...doc, rows };
+    }
+    case 'paste-table': {
+      const pasted = parseTable(action.text).rows;
+      if (pasted.length === 0) return doc;
+      let nextRowNumber = doc.nextRowNumber;
+      const fresh = (): string => `r${nextRowNumber++}`;
+      const start = action.atRowId ? doc.rows.findIndex((r) => r.id === action.atRowId) : -1;
+      if (start < 0) {
+        const rows = pasted.slice(0, MAX_ROWS).map((p): EditorRow => ({ id: fresh(), ...p }));
+        return { ...doc, rows, nextRowNumber };
+      }
+      const rows = [...doc.rows];
+      pasted.forEach((p, k) => {
+        const at = start + k;
+        if (at < rows.length) {
+          const { glyph: _old, ...kept } = rows[at];
+          rows[at] = p.glyph !== undefined ? { ...kept, label: p.label, valueText: p.valueText, glyph: p.glyph } : { ...rows[at], label: p.label, valueText: p.valueText };
+        } else if (rows.length < MAX_ROWS) rows.push({ id: fresh(), ...p });
+      });
+      return { ...doc, rows, nextRowNumber };
+    }
+    case 'set-mode':
+      return action.mode === doc.encoding.mode ? doc : { ...doc, encoding: { ...doc.encoding, mode: action.mode } };
+    case 'set-unit': {
+      if ((doc.encoding.unit ?? null) === action.unit) return doc;
+      if (action.unit !== null && !(Number.isFinite(action.unit) && action.unit > 0)) return doc;
+      const { unit: _old, ...rest } = doc.encoding;
+      return { ...doc, encoding: action.unit === null ? rest : { ...rest, unit: action.unit } };
+    }
+    case 'set-unit-name': {
+      if ((doc.encoding.unitName ?? '') === action.unitName) return doc;
+      const { unitName: _old, ...rest } = doc.encoding;
+      return { ...doc, encoding: action.unitName === '' ? rest : { ...rest, unitName: action.unitName } };
+    }
+    case 'set-glyph':
+      return action.glyph === doc.encoding.glyph ? doc : { ...doc, encoding: { ...doc.encoding, glyph: action.glyph } };
+    case 'set-rounding':
+      return action.rounding === doc.encoding.rounding ? doc : { ...doc, encoding: { ...doc.encoding, rounding: action.rounding } };
+    case 'set-arrangement':
+      return action.arrangement === doc.encoding.arrangement ? doc : { ...doc, encoding: { ...doc.encoding, arrangement: action.arrangement } };
+    case 'set-fill-to':
+      return action.fillTo === doc.encoding.fillTo ? doc : { ...doc, encoding: { ...doc.encoding, fillTo: action.fillTo } };
+    case 'set-colors': {
+      const colors = action.colors && action.colors.length > 0 ? [...action.colors] : undefined;
+      if (sameColors(colors, doc.layout.colors)) return doc;
+      const { colors: _old, ...rest } = doc.layout;
+      return { ...doc, layout: colors ? { ...rest, colors } : rest };
+    }
+    case 'set-page-size': {
+      const { width, height } = action;
+      if (!(width > 0 && height > 0 && Number.isFinite(width) && Number.isFinite(height))) return doc;
+      if (width === doc.page.width && height === doc.page.height) return doc;
+      return { ...doc, page: { ...doc.page, width, height } };
+    }
+    case 'set-page-unit': {
+      if (action.unit === doc.page.unit) return doc;
+      const factor = PAGE_UNIT_MM[doc.page.unit] / PAGE_UNIT_MM[action.unit];
+      return {
+        ...doc,
+        page: { unit: action.unit, width: roundLength(doc.page.width * factor, action.unit), height: roundLength(doc.page.height * factor, action.unit) },
+      };
+    }
+    case 'set-margins': {
+      const m = action.margins;
+      const values = [m.top, m.right, m.bottom, m.left];
+      if (!values.every((v) => Number.isFinite(v) && v >= 0)) return doc;
+      const old = doc.layout.margins;
+      if (m.top === old.top && m.right === old.right && m.bottom === old.bottom && m.left === old.left) return doc;
+      return { ...doc, layout: { ...doc.layout, margins: { top: m.top, right: m.right, bottom: m.bottom, left: m.left } } };
+    }
+    case 'set-bleed':
+      if (!(Number.isFinite(action.bleedMm) && action.bleedMm >= 0) || action.bleedMm === doc.layout.bleedMm) return doc;
+      return { ...doc, layout: { ...doc.layout, bleedMm: action.bleedMm } };
+    case 'set-show':
+      return doc.layout[action.what] === action.on ? doc : { ...doc, layout: { ...doc.layout, [action.what]: action.on } };
+  }
+}
+
+/**
+ * Actions that continue the previous one (typing in the same cell) share one undo step; the key
+ * says what "the same" means. null: always a step of its own.
+ */
+export function coalesceKey(action: Action): string | null {
+  switch (action.type) {
+    case 'edit-label':
+    case 'edit-value':
+      return `${action.type}:${action.rowId}`;
+    case 'set-title':
+    case 'set-source':
+    case 'set-unit-name':
+      return action.type;
+    default:
+      return null;
+  }
+}

@@ -1,0 +1,247 @@
+// The document as the editor holds it: the chart document with each table value kept as the text
+// the designer typed, so a half-typed or wrong value is shown with its problem instead of being lost.
+// toChartDocument turns it back into a chart document, or says which cells stop it.
+
+import {
+  CHART_FORMAT,
+  parseChart,
+  chartToDocument,
+  type Arrangement,
+  type ChartDocument,
+  type EncodingMode,
+  type FillTo,
+  type GlyphRef,
+  type MarginsMm,
+  type PageUnit,
+  type Rounding,
+} from '../../../shared-core/document';
+import { getGlyph } from '../../../shared-core/glyph';
+
+export interface EditorRow {
+  /** Stable within a document, for React keys and actions; never written to the file. */
+  id: string;
+  label: string;
+  /** Exactly what was typed or pasted. */
+  valueText: string;
+  /** Absent: the chart's glyph. */
+  glyph?: GlyphRef;
+  color?: string;
+}
+
+export interface EditorEncoding {
+  mode: EncodingMode;
+  /** Absent: chosen automatically by the layout. */
+  unit?: number;
+  unitName?: string;
+  glyph: GlyphRef;
+  rounding: Rounding;
+  /** Kept when another mode is chosen, so switching back restores it. */
+  arrangement: Arrangement;
+  fillTo: FillTo;
+}
+
+export interface EditorLayout {
+  columns: number | 'auto';
+  gapRatio: number;
+  glyphSizeMm?: number;
+  direction: 'ltr' | 'rtl' | 'btt';
+  colors?: string[];
+  labels: boolean;
+  valueLabels: boolean;
+  legend: boolean;
+  margins: MarginsMm;
+  bleedMm: number;
+}
+
+export interface EditorDocument {
+  title: string;
+  source: string;
+  rows: EditorRow[];
+  encoding: EditorEncoding;
+  layout: EditorLayout;
+  page: { width: number; height: number; unit: PageUnit };
+  outlineText: boolean;
+  useReferences: boolean;
+  /** Next row id number; ids are never reused within a document's history. */
+  nextRowNumber: number;
+}
+
+export type RowField = 'label' | 'value' | 'glyph';
+
+export interface RowProblem {
+  rowId: string;
+  field: RowField;
+  message: string;
+}
+
+export interface ConversionResult {
+  /** The chart document, or null when a cell or setting stops it. */
+  document: ChartDocument | null;
+  rowProblems: RowProblem[];
+  /** Problems that are not about one cell, as plain sentences. */
+  otherProblems: string[];
+}
+
+// ---------------------------------------------------------------------------------------------
+// Numbers typed by people
+
+export type NumberReading = { ok: true; value: number } | { ok: false; message: string };
+
+/**
+ * Reads a value as typed: "7.5", " 1,234 " (thousands commas), "1e3", "+4". A lone comma like "7,5"
+ * is refused rather than guessed, because it means 7.5 in some places and 75 in others.
+ */
+export function readNumber(text: string): NumberReading {
+  const t = text.trim().replace(/[\u00a0\u202f]/g, '');
+  if (t === '') return { ok: false, message: 'Enter a value.' };
+  let plain = t;
+  if (/^[+-]?\d{1,3}(,\d{3})+(\.\d+)?$/.test(t)) plain = t.replace(/,/g, '');
+  else if (/^[+-]?\d+,\d+$/.test(t)) {
+    return { ok: false, message: `"${t}" is ambiguous: write decimals with a point (${t.replace(',', '.')}).` };
+  }
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?$/.test(plain)) {
+    const shown = t.length > 24 ? `${t.slice(0, 24)}…` : t;
+    return { ok: false, message: `"${shown}" is not a number.` };
+  }
+  const value = Number(plain);
+  if (!Number.isFinite(value)) return { ok: false, message: `"${t}" is too large to draw.` };
+  return { ok: true, value };
+}
+
+/** A number as the table shows it after loading: no float noise, no exponent for ordinary sizes. */
+export function formatNumber(value: number): string {
+  if (!Number.isFinite(value)) return String(value);
+  const clean = Number(value.toPrecision(12));
+  return clean === 0 || Math.abs(clean) >= 1e-6 && Math.abs(clean) < 1e15 ? String(clean) : clean.toExponential();
+}
+
+const NEGATIVE_MESSAGE = 'Negative values cannot be drawn: no count, length or area of ink shows less than nothing. Chart gains and losses as separate positive amounts.';
+
+// ---------------------------------------------------------------------------------------------
+// From and to chart documents
+
+/** The editor's form of a chart document (validated first; throws TallyError as parseChart does). */
+export function fromChartDocument(input: unknown): EditorDocument {
+  const spec = parseChart(input);
+  const doc = chartToDocument(spec);
+  const enc = spec.encoding;
+  const rows: EditorRow[] = spec.data.map((row, i) => {
+    const out: EditorRow = { id: `r${i + 1}`, label: row.label, valueText: formatNumber(row.value) };
+    if (row.glyph !== undefined) out.glyph = row.glyph;
+    if (row.color !== undefined) out.color = row.color;
+    return out;
+  });
+  const layout: EditorLayout = { ...spec.layout, margins: { ...spec.layout.margins } };
+  if (spec.layout.colors) layout.colors = [...spec.layout.colors];
+  const encoding: EditorEncoding = {
+    mode: enc.mode,
+    glyph: enc.glyph,
+    rounding: enc.rounding,
+    arrangement: enc.mode === 'repeat' ? enc.arrangement : 'per-category',
+    fillTo: enc.mode === 'fill' ? enc.fillTo : 'max',
+  };
+  if (enc.unit !== undefined) encoding.unit = enc.unit;
+  if (enc.unitName !== undefined) encoding.unitName = enc.unitName;
+  return {
+    title: spec.title ?? '',
+    source: spec.source ?? '',
+    rows,
+    encoding,
+    layout,
+    page: { ...doc.page },
+    outlineText: spec.outlineText,
+    useReferences: spec.useReferences,
+    nextRowNumber: rows.length + 1,
+  };
+}
+
+function glyphProblem(glyph: GlyphRef): string | null {
+  if (typeof glyph !== 'string') return null;
+  try {
+    getGlyph(glyph);
+    return null;
+  } catch (e) {
+    return (e as Error).message;
+  }
+}
+
+/** The chart document to lay out and save, or the problems that stop it, each tied to its cell. */
+export function toChartDocument(ed: EditorDocument): ConversionResult {
+  const rowProblems: RowProblem[] = [];
+  const otherProblems: string[] = [];
+  const data: ChartDocument['data'] = [];
+  const seen = new Map<string, number>();
+  ed.rows.forEach((row, index) => {
+    const label = row.label.trim();
+    if (label === '') rowProblems.push({ rowId: row.id, field: 'label', message: 'Give this row a label.' });
+    else if (seen.has(label)) rowProblems.push({ rowId: row.id, field: 'label', message: `Row ${(seen.get(label) ?? 0) + 1} already uses this label; each category needs its own.` });
+    else seen.set(label, index);
+
+    const read = readNumber(row.valueText);
+    if (!read.ok) rowProblems.push({ rowId: row.id, field: 'value', message: read.message });
+    else if (read.value < 0) rowProblems.push({ rowId: row.id, field: 'value', message: NEGATIVE_MESSAGE });
+    else if (ed.encoding.mode === 'fill' && ed.encoding.fillTo === 'share' && read.value > 1) {
+      rowProblems.push({ rowId: row.id, field: 'value', message: `${formatNumber(read.value)} is more than 1, but "fill by share" reads each value as a share from 0 to 1.` });
+    }
+
+    if (row.glyph !== undefined) {
+      const problem = glyphProblem(row.glyph);
+      if (problem) rowProblems.push({ rowId: row.id, field: 'glyph', message: problem });
+    }
+    const out: ChartDocument['data'][number] = { label, value: read.ok ? read.value : 0 };
+    if (row.glyph !== undefined) out.glyph = row.glyph;
+    if (row.color !== undefined) out.color = row.color;
+    data.push(out);
+  });
+  if (ed.rows.length === 0) otherProblems.push('The table is empty: a chart needs at least one row.');
+  const chartGlyph = glyphProblem(ed.encoding.glyph);
+  if (chartGlyph) otherProblems.push(chartGlyph);
+  if (rowProblems.length > 0 || otherProblems.length > 0) return { document: null, rowProblems, otherProblems };
+
+  const { mode, glyph, rounding, unit, unitName, arrangement, fillTo } = ed.encoding;
+  const encoding: ChartDocument['encoding'] = { mode, glyph, rounding };
+  if (unit !== undefined) encoding.unit = unit;
+  if (unitName !== undefined && unitName.trim() !== '') encoding.unitName = unitName.trim();
+  if (mode === 'repeat') encoding.arrangement = arrangement;
+  if (mode === 'fill') encoding.fillTo = fillTo;
+
+  const layout: NonNullable<ChartDocument['layout']> = {
+    columns: ed.layout.columns,
+    gapRatio: ed.layout.gapRatio,
+    direction: ed.layout.direction,
+    labels: ed.layout.labels,
+    valueLabels: ed.layout.valueLabels,
+    legend: ed.layout.legend,
+    margins: { ...ed.layout.margins },
+    bleedMm: ed.layout.bleedMm,
+  };
+  if (ed.layout.glyphSizeMm !== undefined) layout.glyphSizeMm = ed.layout.glyphSizeMm;
+  if (ed.layout.colors !== undefined && ed.layout.colors.length > 0) layout.colors = [...ed.layout.colors];
+
+  const document: ChartDocument = {
+    format: CHART_FORMAT,
+    data,
+    encoding,
+    layout,
+    page: { ...ed.page },
+    outlineText: ed.outlineText,
+    useReferences: ed.useReferences,
+  };
+  if (ed.title.trim() !== '') document.title = ed.title;
+  if (ed.source.trim() !== '') document.source = ed.source;
+  return { document, rowProblems, otherProblems };
+}
+
+/** The row a document problem path such as `data[2].value` points at, with its field. */
+export function rowForProblemPath(ed: EditorDocument, problemPath: string): { rowId: string; field: RowField } | null {
+  const m = /^data\[(\d+)\](?:\.(label|value|glyph))?/.exec(problemPath);
+  if (!m) return null;
+  const row = ed.rows[Number(m[1])];
+  if (!row) return null;
+  return { rowId: row.id, field: (m[2] as RowField | undefined) ?? 'value' };
+}
+
+/** A file name stem for saving and exporting, from the title. */
+export function documentStem(ed: EditorDocument): string {
+  return ed.title.trim() || 'chart';
+}

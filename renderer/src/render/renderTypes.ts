@@ -1,0 +1,46 @@
+// What one layout-and-check run hands back to the UI, as plain data that survives postMessage.
+
+export interface HonestyRow {
+  label: string;
+  value: number;
+  /** The measured quantity under the chart's reading. */
+  graphic: number;
+  graphicUnit: 'glyphs' | 'mm' | 'mm2' | 'share';
+  /** Against the reference (the smallest positive value); null for the reference itself or when not measurable. */
+  lieFactor: number | null;
+  basis: 'effect' | 'ratio' | null;
+  problem: string | null;
+  isReference: boolean;
+  isWorst: boolean;
+}
+
+export interface HonestyView {
+  pass: boolean;
+  mode: 'repeat' | 'stack' | 'scale' | 'fill';
+  reading: 'count' | 'length' | 'area' | 'fill';
+  limits: { low: number; high: number };
+  reference: { label: string; value: number } | null;
+  rows: HonestyRow[];
+  worst: { label: string; reference: string; lieFactor: number | null } | null;
+  spread: number | null;
+  reason: string | null;
+  problems: string[];
+  suggestions: string[];
+  notes: string[];
+  preflight: { code: string; message: string }[];
+  warnings: { code: string; message: string }[];
+  smallestGlyph: { label: string; inkMm2: number } | null;
+}
+
+export type RenderOutcome =
+  /** Laid out, written and re-measured. svg is null only when a refusal came without the file. */
+  | { kind: 'checked'; svg: string | null; honesty: HonestyView; unit: { value: number; chosen: boolean } | null }
+  /** The document itself is wrong: each problem names its field path (data[2].value...). */
+  | { kind: 'invalid'; message: string; problems: { path: string; message: string }[] }
+  | { kind: 'failed'; code: string; message: string };
+
+export interface DemoChart {
+  id: string;
+  name: string;
+  document: unknown;
+}

@@ -1,0 +1,72 @@
+// A clean copy of a supplied drawing, for placing it on a sheet: re-serialised from the parsed tree
+// without scripts, event handlers, foreign objects, style sheets, editor metadata or references to
+// anything outside the file, and with every id prefixed so two copies can share one document.
+import { escapeXmlAttr, escapeXmlText } from '../svg/writeSvg';
+import type { XmlElement } from '../svg/parseXml';
+import type { Warning } from '../errors';
+
+const DROPPED = new Set(['script', 'foreignObject', 'style', 'iframe', 'handler', 'listener']);
+const ROOT_ONLY = new Set(['width', 'height', 'viewBox', 'x', 'y', 'version', 'preserveAspectRatio', 'baseProfile', 'zoomAndPan', 'contentScriptType', 'contentStyleType', 'id']);
+const SAFE_DATA_URL = /^data:image\/(png|jpeg|jpg|gif|webp)[;,]/i;
+
+export interface SanitizedCopy {
+  /** Children of the root, cleaned, as SVG markup. */
+  markup: string;
+  /** The root's own presentation attributes (fill, transform, style ...), cleaned, as an attribute string for a <g>. */
+  rootAttributes: string;
+  warnings: Warning[];
+}
+
+export function sanitizedCopy(root: XmlElement, idPrefix: string): SanitizedCopy {
+  const dropped = new Map<string, number>();
+  const note = (what: string) => dropped.set(what, (dropped.get(what) ?? 0) + 1);
+  const rewrite = (value: string) =>
+    value.replace(/url\(\s*(['"]?)#([^)'"\s]+)\1\s*\)/g, (_m, _q, id: string) => `url(#${idPrefix}${id})`);
+
+  const attributes = (el: XmlElement, skip: ReadonlySet<string>): string => {
+    let out = '';
+    for (const [k, v] of Object.entries(el.attrs)) {
+      if (skip.has(k)) continue;
+      if (/^on/i.test(k)) {
+        note('event handlers');
+        continue;
+      }
+      if (k === 'xmlns' || k.startsWith('xmlns:')) continue;
+      const colon = k.indexOf(':');
+      if (colon >= 0 && k !== 'xlink:href' && k !== 'xml:space') continue;
+      let value = v;
+      if (k === 'href' || k === 'xlink:href') {
+        const href = v.trim();
+        if (href.startsWith('#')) value = `#${idPrefix}${href.slice(1)}`;
+        else if (!SAFE_DATA_URL.test(href)) {
+          note('outside references');
+          continue;
+        }
+        out += ` href="${escapeXmlAttr(value)}"`;
+        continue;
+      }
+      if (k === 'id') value = idPrefix + v;
+      else value = rewrite(v);
+      out += ` ${k}="${escapeXmlAttr(value)}"`;
+    }
+    return out;
+  };
+
+  const write = (el: XmlElement): string => {
+    if (DROPPED.has(el.name)) {
+      note(`<${el.name}> elements`);
+      return '';
+    }
+    // Editor namespaces (inkscape:, sodipodi:) carry nothing to draw.
+    if (el.qname.includes(':') && !el.qname.startsWith('svg:')) return '';
+    // The parsed tree keeps an element's own text apart from its children; text first is the usual order.
+    const inner = (el.text ? escapeXmlText(el.text) : '') + el.children.map(write).join('');
+    const attrs = attributes(el, new Set());
+    return inner ? `<${el.name}${attrs}>${inner}</${el.name}>` : `<${el.name}${attrs}/>`;
+  };
+
+  const markup = root.children.map(write).join('');
+  const rootAttributes = attributes(root, ROOT_ONLY);
+  const warnings: Warning[] = [...dropped.entries()].map(([what, n]) => ({ code: 'sheet-dropped', message: `The sheet's copy leaves out ${n} ${what} from the supplied file.` }));
+  return { markup, rootAttributes, warnings };
+}

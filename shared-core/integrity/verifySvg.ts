@@ -1,0 +1,848 @@
+// Re-measures a written chart from its SVG text alone (docs/chart-svg.md): the ink of every mark under the
+// chart's reading, Tufte's lie factor for every pair, the gate, and print preflight. It never sees the
+// layout that produced the file, so what it passes is what a reader of the file gets.
+import { TallyError, type Warning } from '../errors';
+import { boxOf, regionArea, unionRegions, type Box, type Region } from '../geometry/region';
+import { collectShapes, inkOfShapes, newBudget, type PaintedShape } from '../glyph/index';
+import type { ChartSummary, Reading } from '../scene/types';
+import type { XmlElement } from '../svg/parseXml';
+import { readChartSvg, type ChartSvgFile, type ChartSvgMark, type ChartSvgPiece } from '../svg/readChartSvg';
+import { measureText } from '../text/measureText';
+import { DISTORTION_LIMITS, gate, type GateMode, type GateRounding } from './gate';
+import { lieFactors, type LieFactorPair } from './lieFactor';
+import { preflight, type Finding, type PreflightOptions } from './preflight';
+
+export interface VerifyOptions {
+  /** Distortion limits; default Tufte's 0.95 and 1.05. */
+  low?: number;
+  high?: number;
+  /**
+   * Distance inside the trim edge that content should keep clear of. Default: the file's
+   * data-safe-margin-mm, else 3 mm (a printer's usual safe zone; common practice, no source).
+   */
+  safeMarginMm?: number;
+  preflight?: PreflightOptions;
+  /** How the document rounds remainders; only sharpens the suggestions, never the verdict. */
+  rounding?: GateRounding;
+}
+
+export interface MarkMeasurement {
+  id: string;
+  label: string;
+  value: number;
+  reading: Reading;
+  /** The quantity the lie factor compares: glyphs (count), mm (length), mm² (area) or a share (fill). */
+  graphic: number;
+  graphicUnit: 'glyphs' | 'mm' | 'mm2' | 'share';
+  /** All of the mark's ink (the union of its pieces), in mm². */
+  inkMm2: number;
+  /** Length of the ink's outline (outer rings and holes), in mm; used to judge raster precision. */
+  perimeterMm: number;
+  /** Glyphs drawn, partial ink included (count and length readings). */
+  glyphs?: number;
+  /** Ink of one of this mark's full glyphs, the unit of count (count and length readings). */
+  unitInkMm2?: number;
+  /** Stack pitch used for this mark's length. */
+  pitchMm?: number;
+  /** filled ink / (filled + rest ink) (fill reading). */
+  fillShare?: number;
+  pieces: { full: number; partial: number; filled: number; rest: number; other: number };
+  /** Bounding box of the ink in page millimetres (origin at the top-left trim corner); null when empty. */
+  boxMm: Box | null;
+}
+
+/** One lie-factor pair as it is reported and printed (no infinities, so it survives JSON). */
+export interface PairSummary {
+  label: string;
+  reference: string;
+  data: number;
+  graphic: number;
+  referenceData: number;
+  referenceGraphic: number;
+  dataRatio: number;
+  graphicRatio: number | null;
+  lieFactor: number | null;
+  basis: LieFactorPair['basis'];
+  problem?: LieFactorPair['problem'];
+}
+
+export interface VerifyReport {
+  pass: boolean;
+  mode: GateMode;
+  reading: Reading;
+  lieFactor: { worst: number | null; worstPair: { label: string; reference: string } | null; pairs: PairSummary[] };
+  /** max(g/d) / min(g/d) over categories with a positive value: 1 when one scale serves them all. */
+  spread: number | null;
+  marks: MarkMeasurement[];
+  /** The main reason for a refusal. */
+  reason?: string;
+  /** Every reason to refuse, most serious first; empty when the chart passes. */
+  problems: string[];
+  suggestions: string[];
+  notes: string[];
+  preflight: Finding[];
+  warnings: Warning[];
+  limits: { low: number; high: number };
+  page: { widthMm: number; heightMm: number; bleedMm: number };
+  /** The smallest single glyph (a full piece, or the smallest mark where marks are single glyphs). */
+  smallestGlyph: { markId: string; label: string; inkMm2: number; perimeterMm: number } | null;
+  /** The summary embedded in the file, as found. */
+  summary: ChartSummary | null;
+}
+
+/** Glyphs meant to be one and the same must agree this closely in ink (1%, far above measuring noise of ~1e-4). */
+const SAME_GLYPH_TOLERANCE = 0.01;
+/** Flattening tolerance in mm: marks are polygons already; this only matters for curves (text, hand-written files). */
+const TOLERANCE_MM = 1e-4;
+/** For ink that is only located and sized (text, rules): 10 µm, far below any preflight threshold. */
+const ROUGH_TOLERANCE_MM = 0.01;
+const DEFAULT_SAFE_MARGIN_MM = 3;
+/** Below this much ink (a 0.3 mm square) a mark's area is at the mercy of coordinate rounding. */
+const TINY_INK_MM2 = 0.1;
+
+const MODE_OF_READING: Record<Reading, GateMode> = { count: 'repeat', length: 'stack', area: 'scale', fill: 'fill' };
+const UNIT_OF_READING: Record<Reading, MarkMeasurement['graphicUnit']> = { count: 'glyphs', length: 'mm', area: 'mm2', fill: 'share' };
+
+interface Ink {
+  region: Region;
+  areaMm2: number;
+  perimeterMm: number;
+  boxMm: Box | null;
+}
+
+type Owner =
+  | { kind: 'mark'; mark: ChartSvgMark; piece: ChartSvgPiece | null }
+  | { kind: 'legend'; index: number }
+  | { kind: 'text'; index: number }
+  | { kind: 'rule' }
+  | { kind: 'background' }
+  | { kind: 'other' };
+
+function num(n: number): string {
+  if (!Number.isFinite(n)) return String(n);
+  if (Number.isInteger(n)) return String(n);
+  return String(Number(n.toPrecision(4)));
+}
+
+function ringLength(ring: Region[number]): number {
+  let s = 0;
+  for (let i = 0, j = ring.length - 1; i < ring.length; j = i++) s += Math.hypot(ring[i].x - ring[j].x, ring[i].y - ring[j].y);
+  return s;
+}
+
+function median(values: number[]): number {
+  const s = [...values].sort((a, b) => a - b);
+  const mid = s.length >> 1;
+  return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
+}
+
+function relDiff(a: number, b: number): number {
+  return Math.abs(a / b - 1);
+}
+
+/** Groups every painted shape by what it belongs to, using the chain of elements it is drawn through. */
+function classify(file: ChartSvgFile, shapes: PaintedShape[]): Map<PaintedShape, Owner> {
+  const markByEl = new Map<XmlElement, ChartSvgMark>();
+  const pieceByEl = new Map<XmlElement, ChartSvgPiece>();
+  for (const m of file.marks) {
+    markByEl.set(m.element, m);
+    for (const p of m.pieces) pieceByEl.set(p.element, p);
+  }
+  const legendByEl = new Map(file.legendKeys.map((k, i) => [k.element, i] as const));
+  const textByEl = new Map(file.texts.map((t, i) => [t.element, i] as const));
+  const rules = new Set(file.rules);
+  const backgrounds = new Set(file.backgrounds);
+  const out = new Map<PaintedShape, Owner>();
+  for (const shape of shapes) {
+    let owner: Owner = { kind: 'other' };
+    let piece: ChartSvgPiece | null = null;
+    for (let i = shape.chain.length - 1; i >= 0; i--) {
+      const el = shape.chain[i];
+      const p = pieceByEl.get(el);
+      if (p && !piece) piece = p;
+      const m = markByEl.get(el);
+      if (m) {
+        owner = { kind: 'mark', mark: m, piece };
+        break;
+      }
+      const li = legendByEl.get(el);
+      if (li !== undefined) {
+        owner = { kind: 'legend', index: li };
+        break;
+      }
+      const ti = textByEl.get(el);
+      if (ti !== undefined) {
+        owner = { kind: 'text', index: ti };
+        break;
+      }
+      if (rules.has(el)) {
+        owner = { kind: 'rule' };
+        break;
+      }
+      if (backgrounds.has(el)) {
+        owner = { kind: 'background' };
+        break;
+      }
+    }
+    out.set(shape, owner);
+  }
+  return out;
+}
+
+/**
+ * Verifies a chart SVG that Tallyglyph wrote, from the text alone. Throws TallyError 'document-invalid'
+ * for an SVG without Tallyglyph marks ("not a Tallyglyph chart; use audit"), 'svg-malformed' for an
+ * unreadable file; everything measurable becomes a report with pass or refuse.
+ */
+export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyReport {
+  const low = opts.low ?? DISTORTION_LIMITS.low;
+  const high = opts.high ?? DISTORTION_LIMITS.high;
+  const file = readChartSvg(svgText);
+  const { page, summary, reading } = file;
+  const s = page.mmPerUnit;
+  const collected = collectShapes(file.root);
+  const warnings: Warning[] = [...file.warnings, ...collected.warnings];
+  const owners = classify(file, collected.shapes);
+  const budget = newBudget(2_000_000, 20_000_000);
+  const tolUnits = TOLERANCE_MM / s;
+
+  const inkOf = (shapes: PaintedShape[], tolerance = tolUnits): Ink => {
+    if (shapes.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
+    const region = inkOfShapes(shapes, tolerance, budget);
+    return inkOfRegion(region);
+  };
+  // Text, rules and artwork are only placed and sized, never compared: a coarse outline is plenty.
+  const roughInkOf = (shapes: PaintedShape[]): Ink => inkOf(shapes, ROUGH_TOLERANCE_MM / s);
+  const inkOfRegion = (region: Region): Ink => {
+    const area = regionArea(region);
+    let perimeter = 0;
+    for (const ring of region) perimeter += ringLength(ring);
+    const b = boxOf(region);
+    const boxMm = region.length && area > 0 ? { x: b.x * s, y: b.y * s, width: b.width * s, height: b.height * s } : null;
+    return { region, areaMm2: area * s * s, perimeterMm: perimeter * s, boxMm };
+  };
+
+  // Shapes per mark piece, per legend key, per text; everything else is kept for the content box.
+  const byPiece = new Map<ChartSvgPiece, PaintedShape[]>();
+  const looseByMark = new Map<ChartSvgMark, PaintedShape[]>();
+  const byLegend = new Map<number, PaintedShape[]>();
+  const byText = new Map<number, PaintedShape[]>();
+  const rest: { shape: PaintedShape; kind: Owner['kind'] }[] = [];
+  const push = <K>(map: Map<K, PaintedShape[]>, key: K, shape: PaintedShape) => {
+    const list = map.get(key);
+    if (list) list.push(shape);
+    else map.set(key, [shape]);
+  };
+  const markStrokes: string[] = [];
+  for (const shape of collected.shapes) {
+    const owner = owners.get(shape) as Owner;
+    if (owner.kind === 'mark') {
+      if (shape.stroke && !markStrokes.includes(owner.mark.id)) markStrokes.push(owner.mark.id);
+      if (owner.piece) push(byPiece, owner.piece, shape);
+      else push(looseByMark, owner.mark, shape);
+    } else if (owner.kind === 'legend') push(byLegend, owner.index, shape);
+    else if (owner.kind === 'text') push(byText, owner.index, shape);
+    else rest.push({ shape, kind: owner.kind });
+  }
+  if (markStrokes.length) {
+    warnings.push({ code: 'mark-stroked', message: `Marks ${markStrokes.slice(0, 5).join(', ')} are stroked; strokes are measured as ink, but the format expects filled pieces only.` });
+  }
+
+  const problems: string[] = [];
+  const suggestions: string[] = [];
+  const notes: string[] = [];
+
+  // ---- ink of every piece and every mark
+  interface MarkInk {
+    mark: ChartSvgMark;
+    ink: Ink;
+    pieces: { piece: ChartSvgPiece; ink: Ink }[];
+    other: number;
+  }
+  const markInks: MarkInk[] = file.marks.map((mark) => {
+    const pieces = mark.pieces.map((piece) => ({ piece, ink: inkOf(byPiece.get(piece) ?? []) }));
+    const loose = looseByMark.get(mark) ?? [];
+    const regions = pieces.map((p) => p.ink.region).filter((r) => r.length);
+    if (loose.length) regions.push(inkOf(loose).region);
+    const ink = regions.length === 0 ? inkOf([]) : regions.length === 1 ? inkOfRegion(regions[0]) : inkOfRegion(disjoint(regions) ? regions.flat() : unionRegions(regions));
+    return { mark, ink, pieces, other: loose.length };
+  });
+  const legendInks = file.legendKeys.map((_, i) => inkOf(byLegend.get(i) ?? []));
+
+  const fulls = (mi: { pieces: PieceInk[] }) => mi.pieces.filter((p) => p.piece.part === 'full' && p.ink.areaMm2 > 0);
+
+  // ---- the unit of count: each mark's own full glyphs, checked to be one size
+  const unitByMark = new Map<ChartSvgMark, number>();
+  if (reading === 'count' || reading === 'length') {
+    for (const mi of markInks) {
+      const f = fulls(mi);
+      if (!f.length) continue;
+      const inks = f.map((p) => p.ink.areaMm2);
+      const mean = inks.reduce((a, b) => a + b, 0) / inks.length;
+      const lo = Math.min(...inks);
+      const hi = Math.max(...inks);
+      if (hi / lo - 1 > SAME_GLYPH_TOLERANCE) {
+        problems.push(`The glyphs of "${mi.mark.label}" are not all one size (ink from ${num(lo)} to ${num(hi)} mm²); every glyph must stand for the same amount.`);
+      }
+      unitByMark.set(mi.mark, mean);
+    }
+    checkSameShapeSameSize(markInks, fulls, legendInks, file, problems);
+  }
+  const chartUnit = unitByMark.size
+    ? median([...unitByMark.values()])
+    : legendInks.find((l) => l.areaMm2 > 0)?.areaMm2 ?? null;
+  if ((reading === 'count' || reading === 'length') && chartUnit === null) {
+    notes.push('No whole glyph is drawn anywhere (no full piece and no legend key), so counts are compared by ink alone.');
+  }
+
+  // ---- stack pitch, measured from the positions of successive slots
+  const pitchByMark = new Map<ChartSvgMark, { pitch: number; start: number; axis: 'x' | 'y' } | null>();
+  let chartPitch: number | null = null;
+  if (reading === 'length') chartPitch = measurePitches(markInks, fulls, pitchByMark, problems, notes, summary);
+
+  // ---- measure each mark under the reading
+  const marks: MarkMeasurement[] = markInks.map((mi) => {
+    const { mark, ink } = mi;
+    const counts = { full: 0, partial: 0, filled: 0, rest: 0, other: mi.other };
+    for (const p of mi.pieces) counts[p.piece.part] += 1;
+    const m: MarkMeasurement = {
+      id: mark.id,
+      label: mark.label,
+      value: mark.value,
+      reading,
+      graphic: 0,
+      graphicUnit: UNIT_OF_READING[reading],
+      inkMm2: ink.areaMm2,
+      perimeterMm: ink.perimeterMm,
+      pieces: counts,
+      boxMm: ink.boxMm,
+    };
+    if (reading === 'count' || reading === 'length') {
+      const unit = unitByMark.get(mark) ?? chartUnit;
+      const glyphs = unit ? ink.areaMm2 / unit : ink.areaMm2;
+      m.glyphs = glyphs;
+      if (unit) m.unitInkMm2 = unit;
+      if (reading === 'count') m.graphic = glyphs;
+      else {
+        const pitch = pitchByMark.get(mark)?.pitch ?? chartPitch;
+        if (pitch) m.pitchMm = pitch;
+        m.graphic = pitch ? glyphs * pitch : glyphs;
+      }
+    } else if (reading === 'area') {
+      m.graphic = ink.areaMm2;
+    } else {
+      let filled = 0;
+      let unfilled = 0;
+      for (const p of mi.pieces) {
+        if (p.piece.part === 'filled') filled += p.ink.areaMm2;
+        else if (p.piece.part === 'rest') unfilled += p.ink.areaMm2;
+      }
+      const share = filled + unfilled > 0 ? filled / (filled + unfilled) : 0;
+      m.fillShare = share;
+      m.graphic = share;
+    }
+    return m;
+  });
+
+  // ---- what the file says about itself: summary and legend against the marks
+  checkSummary(file, marks, problems);
+  checkAbsoluteScale(file, marks, problems, high);
+  if (reading === 'area') checkScaleKeys(file, legendInks, marks, problems, high);
+
+  // ---- Tufte's lie factor and the gate
+  const labels = new Set<string>();
+  const items = marks.map((m) => {
+    const label = labels.has(m.label) ? `${m.label} (${m.id})` : m.label;
+    labels.add(label);
+    return { label, data: m.value, graphic: m.graphic };
+  });
+  const lf = lieFactors(items);
+  const mode: GateMode = summary && MODE_OF_READING[reading] === summary.mode ? summary.mode : MODE_OF_READING[reading];
+  const verdict = gate(lf, { low, high, mode, reading, ...(opts.rounding ? { rounding: opts.rounding } : {}) });
+  const allProblems = [...verdict.problems, ...problems];
+  if (!verdict.pass) {
+    // Close values: the effect form divides the drawing's small error by a small data effect.
+    const w = lf.worst;
+    if (w && w.basis === 'effect' && w.lieFactor !== null && Math.abs(w.dataEffect) < 0.1) {
+      suggestions.push(
+        `"${w.label}" and "${w.reference}" differ by only ${num(Math.abs(w.dataEffect) * 100)}% in value, so the lie factor magnifies any drawing error ` +
+          `${num(1 / Math.abs(w.dataEffect))}x: draw the glyphs larger (less rounding per glyph), or give such close values as text.`,
+      );
+    }
+    // A sliver of ink cannot be drawn to within a few percent (coordinates are written to a micrometre).
+    const ref = lf.reference !== null ? marks.find((m) => m.label === lf.reference) : undefined;
+    const unitInk = ref?.unitInkMm2 ?? null;
+    if (ref && ref.inkMm2 > 0 && (ref.inkMm2 < TINY_INK_MM2 || (unitInk !== null && ref.inkMm2 < 0.01 * unitInk))) {
+      suggestions.push(
+        `"${ref.label}" is drawn with only ${num(ref.inkMm2)} mm² of ink, too little to draw within a few percent: ` +
+          'use a smaller unit or larger glyphs so every category gets more ink, or give the smallest values as text.',
+      );
+    }
+  }
+  for (const sgg of verdict.suggestions) if (!suggestions.includes(sgg)) suggestions.push(sgg);
+  if (problems.length && !verdict.problems.length) {
+    suggestions.push('Export the chart again from its document; a file edited by hand no longer matches its data.');
+  }
+  notes.push(...verdict.notes);
+
+  const measured = summary?.measured;
+  if (measured && measured.lieFactorWorst !== null && lf.worst?.lieFactor != null && Math.abs(measured.lieFactorWorst - lf.worst.lieFactor) > 0.005) {
+    notes.push(`The file records a worst lie factor of ${num(measured.lieFactorWorst)}, but it measures ${num(lf.worst.lieFactor)} now.`);
+  }
+
+  // ---- preflight from the file's own geometry
+  const preflightFindings = preflightFromFile(file, collected.shapes, owners, markInks, legendInks, byText, rest, roughInkOf, opts);
+
+  const smallestGlyph = findSmallestGlyph(markInks, fulls, reading);
+
+  const pass = allProblems.length === 0;
+  const report: VerifyReport = {
+    pass,
+    mode,
+    reading,
+    lieFactor: {
+      worst: lf.worst?.lieFactor ?? null,
+      worstPair: lf.worst ? { label: lf.worst.label, reference: lf.worst.reference } : null,
+      pairs: lf.pairs.map(summarisePair),
+    },
+    spread: lf.spread,
+    marks,
+    problems: allProblems,
+    suggestions: pass ? [] : suggestions,
+    notes,
+    preflight: preflightFindings,
+    warnings,
+    limits: { low, high },
+    page: { widthMm: page.widthMm, heightMm: page.heightMm, bleedMm: page.bleedMm },
+    smallestGlyph,
+    summary,
+  };
+  if (!pass) report.reason = allProblems[0];
+  return report;
+}
+
+/**
+ * True when no two regions' bounding boxes meet, so their union is just all their rings together and the
+ * (costly) polygon union can be skipped. Boxes that merely touch count as meeting.
+ */
+function disjoint(regions: Region[]): boolean {
+  const boxes = regions.map((r) => boxOf(r)).sort((a, b) => a.x - b.x);
+  for (let i = 0; i < boxes.length; i++) {
+    const a = boxes[i];
+    for (let j = i + 1; j < boxes.length && boxes[j].x <= a.x + a.width; j++) {
+      const b = boxes[j];
+      if (b.y <= a.y + a.height && a.y <= b.y + b.height) return false;
+    }
+  }
+  return true;
+}
+
+function summarisePair(p: LieFactorPair): PairSummary {
+  const out: PairSummary = {
+    label: p.label,
+    reference: p.reference,
+    data: p.data,
+    graphic: p.graphic,
+    referenceData: p.referenceData,
+    referenceGraphic: p.referenceGraphic,
+    dataRatio: p.dataRatio,
+    graphicRatio: p.graphicRatio,
+    lieFactor: p.lieFactor,
+    basis: p.basis,
+  };
+  if (p.problem) out.problem = p.problem;
+  return out;
+}
+
+interface PieceInk {
+  piece: ChartSvgPiece;
+  ink: Ink;
+}
+
+/** Shape signature independent of size: ink / box area and box aspect. Equal signatures mean one glyph at two sizes. */
+function signature(ink: Ink): { fill: number; aspect: number } | null {
+  const b = ink.boxMm;
+  if (!b || !(b.width > 0) || !(b.height > 0)) return null;
+  return { fill: ink.areaMm2 / (b.width * b.height), aspect: b.width / b.height };
+}
+
+function sameShape(a: Ink, b: Ink): boolean {
+  const sa = signature(a);
+  const sb = signature(b);
+  return !!sa && !!sb && relDiff(sa.fill, sb.fill) <= SAME_GLYPH_TOLERANCE && relDiff(sa.aspect, sb.aspect) <= SAME_GLYPH_TOLERANCE;
+}
+
+/**
+ * One glyph drawn at two sizes in one chart makes count and ink disagree: a reader sees the bigger glyphs
+ * as more. Different glyphs (a bus and a bike) legitimately differ in ink, so only the same shape is compared.
+ */
+function checkSameShapeSameSize(
+  markInks: { mark: ChartSvgMark; pieces: PieceInk[] }[],
+  fulls: (mi: { mark: ChartSvgMark; pieces: PieceInk[] }) => PieceInk[],
+  legendInks: Ink[],
+  file: ChartSvgFile,
+  problems: string[],
+): void {
+  const firsts = markInks.map((mi) => ({ mark: mi.mark, ink: fulls(mi)[0]?.ink })).filter((x): x is { mark: ChartSvgMark; ink: Ink } => !!x.ink);
+  for (let i = 0; i < firsts.length; i++) {
+    for (let j = i + 1; j < firsts.length; j++) {
+      const a = firsts[i];
+      const b = firsts[j];
+      if (!sameShape(a.ink, b.ink)) continue;
+      const ratio = b.ink.areaMm2 / a.ink.areaMm2;
+      if (Math.abs(ratio - 1) > SAME_GLYPH_TOLERANCE) {
+        problems.push(
+          `The glyphs of "${b.mark.label}" carry ${num(ratio)}x the ink of those of "${a.mark.label}" although they are the same glyph; ` +
+            'every glyph in the chart must be drawn at one size.',
+        );
+        return;
+      }
+    }
+  }
+  legendInks.forEach((key, k) => {
+    if (!(key.areaMm2 > 0)) return;
+    const match = firsts.find((f) => sameShape(f.ink, key));
+    if (match && relDiff(match.ink.areaMm2, key.areaMm2) > SAME_GLYPH_TOLERANCE) {
+      const name = file.legendKeys[k].glyph ? ` (${file.legendKeys[k].glyph})` : '';
+      problems.push(
+        `The legend's key glyph${name} carries ${num(key.areaMm2)} mm² of ink but the same glyph in "${match.mark.label}" carries ${num(match.ink.areaMm2)} mm²; ` +
+          'the key must show the unit glyph at the size the chart uses.',
+      );
+    }
+  });
+}
+
+/** Pitch of each stack from the centres of its full glyphs against their slots; checks even spacing and one baseline. */
+function measurePitches(
+  markInks: { mark: ChartSvgMark; pieces: PieceInk[] }[],
+  fulls: (mi: { mark: ChartSvgMark; pieces: PieceInk[] }) => PieceInk[],
+  out: Map<ChartSvgMark, { pitch: number; start: number; axis: 'x' | 'y' } | null>,
+  problems: string[],
+  notes: string[],
+  summary: ChartSummary | null,
+): number | null {
+  const centres = new Map<ChartSvgMark, { slot: number; x: number; y: number; box: Box }[]>();
+  let missingSlots = false;
+  for (const mi of markInks) {
+    const pts: { slot: number; x: number; y: number; box: Box }[] = [];
+    for (const p of fulls(mi)) {
+      if (p.piece.slot === null) {
+        missingSlots = true;
+        continue;
+      }
+      const b = p.ink.boxMm as Box;
+      pts.push({ slot: p.piece.slot, x: b.x + b.width / 2, y: b.y + b.height / 2, box: b });
+    }
+    centres.set(mi.mark, pts);
+    // The stack must be contiguous from the baseline: slots 0..n-1 for the full glyphs, n for a partial one.
+    const slots = pts.map((p) => p.slot).sort((a, b) => a - b);
+    if (slots.some((sl, i) => sl !== i)) {
+      problems.push(`The stack of "${mi.mark.label}" skips or repeats slots (${slots.join(', ')}); its glyphs must follow one another from the baseline.`);
+    }
+    const partial = mi.pieces.find((p) => p.piece.part === 'partial');
+    if (partial && partial.piece.slot !== null && partial.piece.slot !== slots.length) {
+      problems.push(`The partial glyph of "${mi.mark.label}" sits in slot ${partial.piece.slot}, but the stack has ${slots.length} whole glyphs below it.`);
+    }
+  }
+  if (missingSlots) notes.push('Some stack glyphs have no data-slot, so their positions could not be checked.');
+
+  // Least-squares line through (slot, centre) on each axis; the stack runs along the axis that changes.
+  for (const [mark, pts] of centres) {
+    const distinct = new Set(pts.map((p) => p.slot)).size;
+    if (distinct < 2) {
+      out.set(mark, null);
+      continue;
+    }
+    const fit = (key: 'x' | 'y') => {
+      const n = pts.length;
+      const mx = pts.reduce((a, p) => a + p.slot, 0) / n;
+      const my = pts.reduce((a, p) => a + p[key], 0) / n;
+      let sxy = 0;
+      let sxx = 0;
+      for (const p of pts) {
+        sxy += (p.slot - mx) * (p[key] - my);
+        sxx += (p.slot - mx) ** 2;
+      }
+      const slope = sxy / sxx;
+      return { slope, start: my - slope * mx };
+    };
+    const fx = fit('x');
+    const fy = fit('y');
+    const axis: 'x' | 'y' = Math.abs(fy.slope) >= Math.abs(fx.slope) ? 'y' : 'x';
+    const along = axis === 'y' ? fy : fx;
+    const across = axis === 'y' ? fx : fy;
+    const pitch = Math.abs(along.slope);
+    const slack = SAME_GLYPH_TOLERANCE * pitch + 1e-3;
+    const off = Math.max(
+      ...pts.map((p) => Math.abs(p[axis] - (along.start + along.slope * p.slot))),
+      ...pts.map((p) => Math.abs(p[axis === 'y' ? 'x' : 'y'] - (across.start + across.slope * p.slot))),
+    );
+    if (off > slack) {
+      problems.push(`The glyphs in the stack of "${mark.label}" are not evenly spaced along one line (off by up to ${num(off)} mm); each glyph takes one pitch.`);
+    }
+    out.set(mark, { pitch, start: along.start, axis });
+  }
+  const measured = [...out.values()].filter((v): v is { pitch: number; start: number; axis: 'x' | 'y' } => v !== null);
+  let chartPitch: number | null = measured.length ? median(measured.map((m) => m.pitch)) : null;
+  if (chartPitch === null) {
+    if (summary?.pitchMm && summary.pitchMm > 0) {
+      chartPitch = summary.pitchMm;
+      notes.push('No stack has two whole glyphs, so the pitch is taken from the file\'s summary; lengths are compared at that pitch.');
+    } else {
+      notes.push('No stack has two whole glyphs and the file records no pitch, so stacks are compared by glyph count.');
+    }
+  }
+  // Every stack starts from one baseline: the edge of slot 0 that faces the baseline lies at the same place
+  // along the stack axis. Edges, not centres, so stacks of different glyphs (ink-matched, so of different
+  // heights) standing on one baseline agree.
+  if (chartPitch) {
+    const axis = measured[0]?.axis ?? 'y';
+    const dir = measured.length ? directionOf(centres, out) : -1;
+    const starts: { mark: ChartSvgMark; start: number }[] = [];
+    for (const [mark, pts] of centres) {
+      if (!pts.length) continue;
+      const first = pts.reduce((a, b) => (b.slot < a.slot ? b : a));
+      const lo = axis === 'y' ? first.box.y : first.box.x;
+      const hi = axis === 'y' ? first.box.y + first.box.height : first.box.x + first.box.width;
+      const edge = dir < 0 ? hi : lo;
+      const pitch = out.get(mark)?.pitch ?? chartPitch;
+      starts.push({ mark, start: edge - dir * pitch * first.slot });
+    }
+    if (starts.length > 1) {
+      const ref = starts[0];
+      const worst = starts.reduce((w, st) => (Math.abs(st.start - ref.start) > Math.abs(w.start - ref.start) ? st : w), ref);
+      if (Math.abs(worst.start - ref.start) > SAME_GLYPH_TOLERANCE * chartPitch + 1e-3) {
+        problems.push(`The stack of "${worst.mark.label}" starts ${num(Math.abs(worst.start - ref.start))} mm away from that of "${ref.mark.label}"; every stack must start on the same baseline.`);
+      }
+    }
+  }
+  return chartPitch;
+}
+
+/** +1 when slots grow along the axis (left to right, top to bottom), -1 when they grow against it (upward). */
+function directionOf(
+  centres: Map<ChartSvgMark, { slot: number; x: number; y: number; box: Box }[]>,
+  fits: Map<ChartSvgMark, { pitch: number; start: number; axis: 'x' | 'y' } | null>,
+): number {
+  for (const [mark, pts] of centres) {
+    const f = fits.get(mark);
+    if (!f || pts.length < 2) continue;
+    const a = pts.reduce((m, p) => (p.slot < m.slot ? p : m));
+    const b = pts.reduce((m, p) => (p.slot > m.slot ? p : m));
+    return Math.sign(b[f.axis] - a[f.axis]) || 1;
+  }
+  return -1;
+}
+
+/** The summary's data must be the marks' data: same ids, labels and values. */
+function checkSummary(file: ChartSvgFile, marks: MarkMeasurement[], problems: string[]): void {
+  const summary = file.summary;
+  if (!summary) return;
+  if (summary.mode && MODE_OF_READING[file.reading] !== summary.mode) {
+    problems.push(`The file's summary says mode "${summary.mode}" but its marks are read by ${file.reading}.`);
+  }
+  if (!Array.isArray(summary.data)) return;
+  const byId = new Map(summary.data.map((d) => [d.id, d]));
+  for (const m of marks) {
+    const d = byId.get(m.id);
+    if (!d) {
+      problems.push(`Mark "${m.id}" ("${m.label}") is not in the file's summary of its data.`);
+      continue;
+    }
+    if (d.label !== m.label || !(Math.abs(d.value - m.value) <= 1e-9 * Math.max(1, Math.abs(d.value)))) {
+      problems.push(`The file's summary records "${d.label}" = ${num(d.value)}, but mark "${m.id}" carries "${m.label}" = ${num(m.value)}.`);
+    }
+  }
+  const markIds = new Set(marks.map((m) => m.id));
+  const lost = summary.data.filter((d) => !markIds.has(d.id));
+  if (lost.length) problems.push(`The file's summary lists ${lost.map((d) => `"${d.label}"`).join(', ')}, which the file does not draw.`);
+}
+
+/**
+ * The lie factor compares categories with each other; the legend makes an absolute claim too ("one glyph =
+ * 50 rides"). A chart drawn at twice the stated unit throughout has lie factor 1 but still misleads.
+ */
+function checkAbsoluteScale(file: ChartSvgFile, marks: MarkMeasurement[], problems: string[], high: number): void {
+  const summary = file.summary;
+  const reading = file.reading;
+  const tolerance = high - 1;
+  const keyUnit = file.legendKeys.find((k) => k.unitValue !== null)?.unitValue ?? null;
+  const unit = reading === 'count' || reading === 'length' ? (keyUnit ?? summary?.unit ?? null) : (summary?.unit ?? null);
+  if (!(unit !== null && unit > 0 && Number.isFinite(unit))) return;
+  const unitName = summary?.unitName ? ` ${summary.unitName}` : '';
+  for (const m of marks) {
+    if (!(m.value > 0)) continue;
+    if ((reading === 'count' || reading === 'length') && m.glyphs !== undefined && m.unitInkMm2 !== undefined) {
+      const shown = m.glyphs * unit;
+      if (relDiff(shown, m.value) > tolerance + 1e-9) {
+        problems.push(`"${m.label}" is drawn as ${num(m.glyphs)} glyphs, which the key reads as ${num(shown)}${unitName} at ${num(unit)} per glyph, but its value is ${num(m.value)}.`);
+        return;
+      }
+    } else if (reading === 'fill' && m.fillShare !== undefined) {
+      const expected = m.value / unit;
+      if (relDiff(m.fillShare, expected) > tolerance + 1e-9) {
+        problems.push(`"${m.label}" is filled to ${num(m.fillShare * 100)}% of its glyph's ink, but its value ${num(m.value)} of ${num(unit)} is ${num(expected * 100)}%.`);
+        return;
+      }
+    } else if (reading === 'area') {
+      const shown = m.inkMm2 * unit;
+      if (relDiff(shown, m.value) > tolerance + 1e-9) {
+        problems.push(`"${m.label}" carries ${num(m.inkMm2)} mm² of ink, which the file's scale (${num(unit)} per mm²) reads as ${num(shown)}, but its value is ${num(m.value)}.`);
+        return;
+      }
+    }
+  }
+}
+
+/**
+ * A scale chart's key ("this much ink = 250 trees") must follow the marks' own ink per unit of value, or a
+ * reader comparing a mark with the key misjudges it by the same factor. Scale-free: marks against key.
+ */
+function checkScaleKeys(file: ChartSvgFile, legendInks: Ink[], marks: MarkMeasurement[], problems: string[], high: number): void {
+  const perValue = marks.filter((m) => m.value > 0 && m.inkMm2 > 0).map((m) => m.inkMm2 / m.value);
+  if (!perValue.length) return;
+  const chart = median(perValue);
+  file.legendKeys.forEach((key, i) => {
+    const ink = legendInks[i];
+    if (key.unitValue === null || !(ink.areaMm2 > 0)) return;
+    const ratio = ink.areaMm2 / key.unitValue / chart;
+    if (Math.abs(ratio - 1) > high - 1 + 1e-9) {
+      problems.push(
+        `The key glyph for ${num(key.unitValue)} carries ${num(ink.areaMm2)} mm² of ink, ${num(ratio)}x what the marks carry for that value; ` +
+          'a reader comparing a mark with the key would misjudge it.',
+      );
+    }
+  });
+}
+
+function findSmallestGlyph(
+  markInks: { mark: ChartSvgMark; ink: Ink; pieces: PieceInk[] }[],
+  fulls: (mi: { mark: ChartSvgMark; pieces: PieceInk[] }) => PieceInk[],
+  reading: Reading,
+): VerifyReport['smallestGlyph'] {
+  let best: VerifyReport['smallestGlyph'] = null;
+  const consider = (mark: ChartSvgMark, ink: Ink) => {
+    if (!(ink.areaMm2 > 0)) return;
+    if (!best || ink.areaMm2 < best.inkMm2) best = { markId: mark.id, label: mark.label, inkMm2: ink.areaMm2, perimeterMm: ink.perimeterMm };
+  };
+  for (const mi of markInks) {
+    if (reading === 'area') consider(mi.mark, mi.ink);
+    else if (reading === 'fill') {
+      const whole = mi.pieces.filter((p) => p.piece.part === 'filled' || p.piece.part === 'rest');
+      const area = whole.reduce((a, p) => a + p.ink.areaMm2, 0);
+      const perimeter = whole.reduce((a, p) => a + p.ink.perimeterMm, 0);
+      if (area > 0) consider(mi.mark, { region: [], areaMm2: area, perimeterMm: perimeter, boxMm: null });
+    } else for (const p of fulls(mi)) consider(mi.mark, p.ink);
+  }
+  return best;
+}
+
+// ---- preflight
+
+/** Cap height of the bundled font per millimetre of font size, for reading a text size off outlined text. */
+let capPerEm: number | null = null;
+function capHeightPerEm(): number {
+  capPerEm ??= measureText('H', { sizeMm: 1 }).capHeightMm;
+  return capPerEm;
+}
+
+/**
+ * Font size of outlined text, in pt, when the writer did not record it: the glyphs standing on the most
+ * common baseline reach up to about the cap height (ascenders a little more, so this errs a few percent
+ * large; lower-case-only text such as "some cars" errs small). Good enough for a 6 pt warning.
+ */
+function estimateTextSizePt(ink: Ink, mmPerUnit: number): number | null {
+  const rings = ink.region
+    .map((r) => boxOf([r]))
+    .filter((b) => b.height > 0);
+  if (!rings.length) return null;
+  const bottoms = new Map<number, number>();
+  const grain = Math.max(...rings.map((b) => b.height)) * 0.02;
+  for (const b of rings) {
+    const key = Math.round((b.y + b.height) / grain);
+    bottoms.set(key, (bottoms.get(key) ?? 0) + 1);
+  }
+  let baselineKey = 0;
+  let most = -1;
+  for (const [k, n] of bottoms) if (n > most || (n === most && k > baselineKey)) [baselineKey, most] = [k, n];
+  const standing = rings.filter((b) => Math.abs(Math.round((b.y + b.height) / grain) - baselineKey) <= 1);
+  const baseline = Math.max(...standing.map((b) => b.y + b.height));
+  const top = Math.min(...standing.map((b) => b.y));
+  const capMm = (baseline - top) * mmPerUnit;
+  return ((capMm / capHeightPerEm()) * 72) / 25.4;
+}
+
+function preflightFromFile(
+  file: ChartSvgFile,
+  shapes: PaintedShape[],
+  owners: Map<PaintedShape, Owner>,
+  markInks: { mark: ChartSvgMark; ink: Ink }[],
+  legendInks: Ink[],
+  byText: Map<number, PaintedShape[]>,
+  rest: { shape: PaintedShape; kind: Owner['kind'] }[],
+  inkOf: (shapes: PaintedShape[]) => Ink,
+  opts: VerifyOptions,
+): Finding[] {
+  const { page } = file;
+  const s = page.mmPerUnit;
+  const strokes: { widthPt: number; owner: string }[] = [];
+  for (const shape of shapes) {
+    if (!shape.stroke) continue;
+    const m = shape.ctm;
+    const scale = Math.sqrt(Math.abs(m[0] * m[3] - m[1] * m[2]));
+    const owner = owners.get(shape) as Owner;
+    const name =
+      owner.kind === 'mark' ? `"${owner.mark.label}"` : owner.kind === 'text' ? `${file.texts[owner.index].role} text` : owner.kind === 'rule' ? 'baseline or rule' : owner.kind === 'legend' ? 'legend' : 'artwork';
+    strokes.push({ widthPt: (shape.stroke.width * scale * s * 72) / 25.4, owner: name });
+  }
+
+  const boxes: Box[] = [];
+  for (const mi of markInks) if (mi.ink.boxMm) boxes.push(mi.ink.boxMm);
+  for (const l of legendInks) if (l.boxMm) boxes.push(l.boxMm);
+  const texts: { sizePt: number; owner: string }[] = [];
+  file.texts.forEach((t, i) => {
+    const ink = inkOf(byText.get(i) ?? []);
+    if (ink.boxMm) boxes.push(ink.boxMm);
+    const sizePt = t.sizePt ?? (ink.boxMm ? estimateTextSizePt(ink, s) : null);
+    if (sizePt !== null) texts.push({ sizePt, owner: `${t.role} text` });
+  });
+
+  // Background: marked as such, or unmarked artwork that covers the whole trim box.
+  const trim = { x: 0, y: 0, width: page.widthMm, height: page.heightMm };
+  const bleedBox = { x: -page.bleedMm, y: -page.bleedMm, width: page.widthMm + 2 * page.bleedMm, height: page.heightMm + 2 * page.bleedMm };
+  let backgroundCoversBleed = false;
+  const covers = (b: Box, target: Box) => {
+    const e = 1e-6 * Math.max(target.width, target.height);
+    return b.x <= target.x + e && b.y <= target.y + e && b.x + b.width >= target.x + target.width - e && b.y + b.height >= target.y + target.height - e;
+  };
+  for (const { shape, kind } of rest) {
+    const ink = inkOf([shape]);
+    if (!ink.boxMm) continue;
+    const isBackground = kind === 'background' || covers(ink.boxMm, trim);
+    if (isBackground) {
+      if (covers(ink.boxMm, bleedBox)) backgroundCoversBleed = true;
+    } else boxes.push(ink.boxMm);
+  }
+  let contentBoxMm: Box;
+  if (boxes.length) {
+    const x0 = Math.min(...boxes.map((b) => b.x));
+    const y0 = Math.min(...boxes.map((b) => b.y));
+    const x1 = Math.max(...boxes.map((b) => b.x + b.width));
+    const y1 = Math.max(...boxes.map((b) => b.y + b.height));
+    contentBoxMm = { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
+  } else contentBoxMm = { x: page.widthMm / 2, y: page.heightMm / 2, width: 0, height: 0 };
+
+  const declared = Number(file.root.attrs['data-safe-margin-mm']);
+  const safeMarginMm = opts.safeMarginMm ?? (Number.isFinite(declared) && declared >= 0 && file.root.attrs['data-safe-margin-mm'] !== undefined ? declared : DEFAULT_SAFE_MARGIN_MM);
+  return preflight(
+    { page: { widthMm: page.widthMm, heightMm: page.heightMm }, bleedMm: page.bleedMm, safeMarginMm, strokes, texts, contentBoxMm, backgroundCoversBleed },
+    opts.preflight,
+  );
+}
+
+/** Throws TallyError('gate-refused') for a failing report, naming the reason and the first thing to try. */
+export function assertVerified(report: VerifyReport, what = 'The chart'): void {
+  if (report.pass) return;
+  const fix = report.suggestions[0] ? ` Try: ${report.suggestions[0]}` : '';
+  throw new TallyError('gate-refused', `${what} was refused: ${report.reason ?? 'it did not pass verification.'}${fix}`, report);
+}

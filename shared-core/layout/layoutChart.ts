@@ -1,0 +1,172 @@
+// The chart as a scene: glyphs resolved and normalised by ink, the mode's layout inside the page
+// frame (title on top, source at the foot), labels checked for collisions, and the summary that
+// the written file will carry. Pure: the same spec always gives the same scene.
+import type { ChartSpec } from '../document';
+import type { Warning } from '../errors';
+import type { ChartSummary, Reading, Scene, SceneText } from '../scene';
+import { resolveLabelCollisions } from './collisions';
+import { fillLayout } from './fillLayout';
+import { createGlyphBook } from './glyphBook';
+import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, wrapText } from './labels';
+import type { BoxMm, ChartRow, LayoutContext, ModeResult } from './layoutContext';
+import { categoryColor, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
+import { repeatLayout } from './repeatLayout';
+import { resolveGlyphs } from './resolveGlyphs';
+import { scaleLayout } from './scaleLayout';
+import { stackLayout } from './stackLayout';
+import { assertGlyphBudget } from './chooseUnit';
+
+export const READING_OF_MODE: Readonly<Record<ChartSpec['encoding']['mode'], Reading>> = Object.freeze({
+  repeat: 'count',
+  stack: 'length',
+  scale: 'area',
+  fill: 'fill',
+});
+
+/** Space between the title block and the chart, and between the chart and the source line. */
+const BLOCK_GAP_MM = 4;
+/** Distance inside the trim edge that content keeps clear of: a printer's usual safe zone (common practice, no source). */
+export const SAFE_MARGIN_MM = 3;
+
+interface Frame {
+  box: BoxMm;
+  texts: SceneText[];
+}
+
+/** Lines of text that fit a width: wrapped at words, then shrunk (not below the print minimum) if a single word is still too wide. */
+function fittedLines(text: string, widthMm: number, sizeMm: number, weight: 400 | 700): { lines: string[]; sizeMm: number } {
+  let size = sizeMm;
+  let lines = wrapText(text, widthMm, size, weight);
+  const widest = Math.max(0, ...lines.map((l) => textWidthMm(l, size, weight)));
+  if (widest > widthMm) {
+    size = Math.max(MIN_TEXT_SIZE_MM, (size * widthMm) / widest);
+    lines = wrapText(text, widthMm, size, weight);
+  }
+  return { lines, sizeMm: size };
+}
+
+function pageFrame(spec: ChartSpec): Frame {
+  const { margins } = spec.layout;
+  const x = margins.left;
+  const width = spec.page.widthMm - margins.left - margins.right;
+  let top = margins.top;
+  let bottom = spec.page.heightMm - margins.bottom;
+  const texts: SceneText[] = [];
+
+  const title = spec.title?.trim();
+  if (title) {
+    const fitted = fittedLines(title, width, TEXT_SIZE_MM.title, 700);
+    const m = lineMetrics(fitted.sizeMm, 700);
+    fitted.lines.forEach((line, i) => {
+      texts.push(makeText({ role: 'title', text: line, xMm: x, yMm: top + m.ascentMm + i * m.lineHeightMm, sizeMm: fitted.sizeMm, weight: 700 }));
+    });
+    top += m.boxHeightMm + (fitted.lines.length - 1) * m.lineHeightMm + BLOCK_GAP_MM;
+  }
+  const source = spec.source?.trim();
+  if (source) {
+    const fitted = fittedLines(/^source\b/i.test(source) ? source : `Source: ${source}`, width, TEXT_SIZE_MM.source, 400);
+    const m = lineMetrics(fitted.sizeMm);
+    const count = fitted.lines.length;
+    fitted.lines.forEach((line, i) => {
+      texts.push(makeText({ role: 'source', text: line, xMm: x, yMm: bottom - m.descentMm - (count - 1 - i) * m.lineHeightMm, sizeMm: fitted.sizeMm, color: INK_COLORS.muted }));
+    });
+    bottom -= m.boxHeightMm + (count - 1) * m.lineHeightMm + BLOCK_GAP_MM;
+  }
+  return { box: { x, y: top, width, height: Math.max(0, bottom - top) }, texts };
+}
+
+function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['rows'], warnings: Warning[]): ChartRow[] {
+  const warned = new Set<string>();
+  return spec.data.map((row, i) => {
+    const given = categoryColor(i, row.color, spec.layout.colors);
+    // One warning per colour, however many categories share it.
+    const color = opaqueColor(given, warned.has(given) ? undefined : warnings, `"${row.label}"`);
+    warned.add(given);
+    return {
+      id: `mark-${i + 1}`,
+      label: oneLine(row.label),
+      dataLabel: row.label,
+      value: row.value,
+      glyph: glyphs[i],
+      color,
+      restColor: mixWithWhite(color, REST_WHITE_SHARE),
+    };
+  });
+}
+
+function runMode(ctx: LayoutContext): ModeResult {
+  switch (ctx.spec.encoding.mode) {
+    case 'repeat':
+      return repeatLayout(ctx);
+    case 'stack':
+      return stackLayout(ctx);
+    case 'scale':
+      return scaleLayout(ctx);
+    case 'fill':
+      return fillLayout(ctx);
+  }
+}
+
+/**
+ * Lays out a validated chart (see parseChart) as a scene in page millimetres.
+ * Throws TallyError for glyphs that cannot be used and for charts over the glyph budget
+ * (the message suggests a unit that fits).
+ */
+export function layoutChart(spec: ChartSpec): Scene {
+  const { mode } = spec.encoding;
+  // Scale and fill draw one glyph per category: the same budget bounds the number of categories.
+  if (mode === 'scale' || mode === 'fill') assertGlyphBudget(spec.data.map(() => 1), 1, { labels: spec.data.map((r) => r.label) });
+  const warnings: Warning[] = [];
+  const glyphs = resolveGlyphs(spec);
+  warnings.push(...glyphs.warnings);
+  const rows = chartRows(spec, glyphs.rows, warnings);
+  const frame = pageFrame(spec);
+  const book = createGlyphBook();
+  const ctx: LayoutContext = { spec, rows, chartGlyph: glyphs.chart, box: frame.box, book, warnings };
+  const result = runMode(ctx);
+
+  const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] });
+  warnings.push(...resolved.warnings);
+
+  const summary: ChartSummary = {
+    format: 'tallyglyph.summary/1',
+    title: spec.title ?? '',
+    source: spec.source ?? '',
+    mode,
+    reading: READING_OF_MODE[mode],
+    unit: result.unit,
+    unitName: spec.encoding.unitName ?? '',
+    data: rows.map((r) => ({ id: r.id, label: r.dataLabel, value: r.value })),
+  };
+  if (result.unitGlyphInkMm2 !== undefined) summary.unitGlyphInkMm2 = result.unitGlyphInkMm2;
+  if (result.pitchMm !== undefined) summary.pitchMm = result.pitchMm;
+  if (result.baselineYMm !== undefined) summary.baselineYMm = result.baselineYMm;
+
+  const scene: Scene = {
+    page: {
+      widthMm: spec.page.widthMm,
+      heightMm: spec.page.heightMm,
+      bleedMm: spec.layout.bleedMm,
+      safeMarginMm: SAFE_MARGIN_MM,
+    },
+    marks: result.marks,
+    texts: resolved.texts,
+    lines: result.lines,
+    legendKeys: result.legendKeys,
+    summary,
+    warnings: dedupe(warnings),
+    shapes: book.shapes(),
+  };
+  if (result.unitChoice) scene.unitChoice = result.unitChoice;
+  return scene;
+}
+
+function dedupe(warnings: Warning[]): Warning[] {
+  const seen = new Set<string>();
+  return warnings.filter((w) => {
+    const key = `${w.code}\n${w.message}`;
+    if (seen.has(key)) return false;
+    seen.add(key);
+    return true;
+  });
+}

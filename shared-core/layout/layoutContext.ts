@@ -1,0 +1,71 @@
+// What every mode layout receives and returns, and the glyph-size arithmetic they share.
+import type { ChartSpec } from '../document';
+import type { Warning } from '../errors';
+import type { SceneLegendKey, SceneLine, SceneMark, SceneText, SceneUnitChoice } from '../scene';
+import type { GlyphBook } from './glyphBook';
+import type { ResolvedGlyph } from './resolveGlyphs';
+
+export interface BoxMm {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+export interface ChartRow {
+  /** Mark id, `mark-N`. */
+  id: string;
+  /** The label on one line, as drawn. */
+  label: string;
+  /** The label as given in the data. */
+  dataLabel: string;
+  value: number;
+  glyph: ResolvedGlyph;
+  color: string;
+  restColor: string;
+}
+
+export interface LayoutContext {
+  spec: ChartSpec;
+  rows: ChartRow[];
+  chartGlyph: ResolvedGlyph;
+  /** Room for the marks, their labels and the legend, inside the margins, below the title, above the source. */
+  box: BoxMm;
+  book: GlyphBook;
+  warnings: Warning[];
+}
+
+export interface ModeResult {
+  marks: SceneMark[];
+  texts: SceneText[];
+  lines: SceneLine[];
+  legendKeys: SceneLegendKey[];
+  /** Quantity per unit glyph (repeat, stack), value per mm² (scale), value of a full glyph (fill). */
+  unit: number;
+  unitGlyphInkMm2?: number;
+  pitchMm?: number;
+  baselineYMm?: number;
+  unitChoice?: SceneUnitChoice;
+}
+
+/**
+ * Size factors of glyphs that share one ink area A: a glyph with ink a and ink box bw x bh is
+ * drawn bw·sqrt(A/a) wide. Returned per sqrt(A), the largest over the glyphs given.
+ */
+export function sizePerRootInk(glyphs: readonly ResolvedGlyph[]): { width: number; height: number; largest: number } {
+  let width = 0;
+  let height = 0;
+  for (const g of glyphs) {
+    const r = Math.sqrt(g.areaUnits2);
+    width = Math.max(width, g.bbox.width / r);
+    height = Math.max(height, g.bbox.height / r);
+  }
+  return { width, height, largest: Math.max(width, height) };
+}
+
+export function overflowWarning(what: string): Warning {
+  return {
+    code: 'layout-overflow',
+    message: `${what} do not fit inside the margins even at the smallest glyph size; some content runs past the margins. Use a larger page, fewer glyphs (a larger unit) or smaller margins.`,
+  };
+}

@@ -1,0 +1,128 @@
+// Legends: one key glyph at exactly the chart's unit size with "one glyph = N units", or for
+// scale charts nested reference glyphs whose ink follows the same k as the marks.
+import type { SceneLegendKey, SceneText } from '../scene';
+import { READABLE_MANTISSAS } from './chooseUnit';
+import type { ChartShape, GlyphBook } from './glyphBook';
+import { formatValue, lineMetrics, makeText, textWidthMm, TEXT_SIZE_MM } from './labels';
+import type { BoxMm } from './layoutContext';
+import { INK_COLORS } from './palette';
+import type { ResolvedGlyph } from './resolveGlyphs';
+
+/** Space between the marks (or their labels) and the legend row. */
+export const LEGEND_GAP_MM = 4;
+const KEY_TEXT_GAP_MM = 2;
+
+export interface LegendPart {
+  texts: SceneText[];
+  legendKeys: SceneLegendKey[];
+  /** Bottom of the legend row. */
+  bottomMm: number;
+}
+
+/** Height the unit legend adds below the marks, gap included. */
+export function unitLegendHeightMm(keyHeightMm: number): number {
+  return LEGEND_GAP_MM + Math.max(keyHeightMm, lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm);
+}
+
+export function unitLegendText(unit: number, unitName: string, prefix = 'one glyph ='): string {
+  return `${prefix} ${formatValue(unit)}${unitName ? ` ${unitName}` : ''}`;
+}
+
+/** Key glyph (a full glyph at the chart's unit ink) and its sentence, in a row starting at topMm. */
+export function placeUnitLegend(book: GlyphBook, shape: ChartShape, box: BoxMm, topMm: number, text: string, unitValue: number, unitName: string): LegendPart {
+  const m = lineMetrics(TEXT_SIZE_MM.legend);
+  const rowHeightMm = Math.max(shape.heightMm, m.boxHeightMm);
+  const keyYMm = topMm + (rowHeightMm - shape.heightMm) / 2;
+  const key: SceneLegendKey = {
+    glyph: shape.glyph.name,
+    region: book.full(shape, box.x, keyYMm).region,
+    color: INK_COLORS.key,
+    unitValue,
+    unitName,
+  };
+  const label = makeText({
+    role: 'legend',
+    text,
+    xMm: box.x + shape.widthMm + KEY_TEXT_GAP_MM,
+    yMm: topMm + rowHeightMm / 2 + m.capHeightMm / 2,
+    sizeMm: TEXT_SIZE_MM.legend,
+    color: INK_COLORS.muted,
+  });
+  return { texts: [label], legendKeys: [key], bottomMm: topMm + rowHeightMm };
+}
+
+/** Largest readable amount (1, 2, 2.5 or 5 x 10^k) not above x. */
+export function readableFloor(x: number): number {
+  if (!(x > 0) || !Number.isFinite(x)) return 0;
+  let k = Math.floor(Math.log10(x));
+  for (let tries = 0; tries < 3; tries++, k--) {
+    for (let i = READABLE_MANTISSAS.length - 1; i >= 0; i--) {
+      const v = k >= 0 ? READABLE_MANTISSAS[i] * 10 ** k : READABLE_MANTISSAS[i] / 10 ** -k;
+      if (v <= x * (1 + 1e-12)) return v;
+    }
+  }
+  return x;
+}
+
+export const SCALE_LEGEND_CAPTION = 'Glyph area shows the value:';
+
+interface Reference {
+  value: number;
+  shape: ChartShape;
+}
+
+/**
+ * Reference amounts for a scale legend: a readable value near a quarter of the largest, and one near a
+ * quarter of that (half its height) when there is room to label both.
+ */
+function references(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number): Reference[] {
+  const first = readableFloor(maxValue / 4);
+  if (!(first > 0)) return [];
+  const refs: Reference[] = [{ value: first, shape: book.shape(glyph, inkMm2PerValue * first) }];
+  const second = readableFloor(first / 4);
+  const m = lineMetrics(TEXT_SIZE_MM.legend);
+  if (second > 0 && second < first) {
+    const shape = book.shape(glyph, inkMm2PerValue * second);
+    // Both labels sit at their glyph's top; they need a line of height between them and room below.
+    if (refs[0].shape.heightMm - shape.heightMm >= m.lineHeightMm && shape.heightMm >= m.capHeightMm + m.descentMm) refs.push({ value: second, shape });
+  }
+  return refs;
+}
+
+/** Height the scale legend adds below the marks, gap included. Probes the book only for sizes. */
+export function scaleLegendHeightMm(glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number): number {
+  const first = readableFloor(maxValue / 4);
+  if (!(first > 0)) return 0;
+  const heightMm = glyph.bbox.height * Math.sqrt((inkMm2PerValue * first) / glyph.areaUnits2);
+  return LEGEND_GAP_MM + Math.max(heightMm, lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm);
+}
+
+/** Nested reference glyphs, bottom-aligned and centred on each other, largest behind, each labelled at its top. */
+export function placeScaleLegend(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number, unitName: string, box: BoxMm, topMm: number): LegendPart {
+  const refs = references(book, glyph, inkMm2PerValue, maxValue);
+  if (refs.length === 0) return { texts: [], legendKeys: [], bottomMm: topMm };
+  const m = lineMetrics(TEXT_SIZE_MM.legend);
+  const rowHeightMm = Math.max(refs[0].shape.heightMm, m.boxHeightMm);
+  const bottomMm = topMm + rowHeightMm;
+  const caption = makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: bottomMm - m.descentMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted });
+  const groupXMm = box.x + textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend) + 3;
+  const widest = refs[0].shape.widthMm;
+  const texts: SceneText[] = [caption];
+  const legendKeys: SceneLegendKey[] = [];
+  refs.forEach((ref, i) => {
+    const x = groupXMm + (widest - ref.shape.widthMm) / 2;
+    const y = bottomMm - ref.shape.heightMm;
+    legendKeys.push({ glyph: glyph.name, region: book.full(ref.shape, x, y).region, color: INK_COLORS.referenceKeys[i], unitValue: ref.value, unitName });
+    texts.push(
+      makeText({
+        role: 'legend',
+        text: `${formatValue(ref.value)}${unitName ? ` ${unitName}` : ''}`,
+        xMm: groupXMm + widest + KEY_TEXT_GAP_MM,
+        yMm: Math.min(y + m.capHeightMm, bottomMm - m.descentMm),
+        sizeMm: TEXT_SIZE_MM.legend,
+        color: INK_COLORS.muted,
+      }),
+    );
+  });
+  return { texts, legendKeys, bottomMm };
+}

@@ -1,0 +1,245 @@
+// Repeat: each category as a count of equal unit glyphs, either a grid per category (label left,
+// value right) or one shared grid for parts of a whole, each category a contiguous run in its colour.
+import type { RepeatEncoding } from '../document';
+import type { CutDirection } from '../glyph';
+import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
+import { chooseGlyphSize } from './fitSize';
+import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, textWidthMm, TEXT_SIZE_MM } from './labels';
+import { sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
+import { INK_COLORS } from './palette';
+import { resolveUnit, type GlyphCount } from './resolveUnit';
+import type { ResolvedGlyph } from './resolveGlyphs';
+
+/** Largest glyph the layout picks by itself (common practice for icon arrays, no source). */
+export const REPEAT_MAX_GLYPH_MM = 18;
+const LABEL_PAD_MM = 3;
+/** Widest a category label may be before it breaks onto more lines, as a share of the chart width. */
+const LABEL_SHARE = 0.3;
+const VALUE_PAD_MM = 2;
+const EPS_MM = 1e-9;
+
+interface Grid {
+  cellWMm: number;
+  cellHMm: number;
+  gapMm: number;
+  inkMm2: number;
+  columns: number;
+}
+
+function gridAt(glyphs: readonly ResolvedGlyph[], glyphSizeMm: number, gapRatio: number): Omit<Grid, 'columns'> {
+  const f = sizePerRootInk(glyphs);
+  const root = glyphSizeMm / f.largest;
+  return { cellWMm: root * f.width, cellHMm: root * f.height, gapMm: gapRatio * glyphSizeMm, inkMm2: root * root };
+}
+
+function autoColumns(widthMm: number, cellWMm: number, gapMm: number, most: number): number {
+  return Math.max(1, Math.min(Math.max(1, most), Math.floor((widthMm + gapMm + EPS_MM) / (cellWMm + gapMm))));
+}
+
+function gridWidthMm(columns: number, g: { cellWMm: number; gapMm: number }): number {
+  return columns * g.cellWMm + (columns - 1) * g.gapMm;
+}
+
+function cutDirection(direction: string): CutDirection {
+  return direction === 'rtl' || direction === 'btt' ? direction : 'ltr';
+}
+
+/** Where slot `index` of a run sits in a grid of `columns`, following the reading direction. */
+function slotCell(index: number, columns: number, rows: number, direction: CutDirection): { row: number; column: number } {
+  let row = Math.floor(index / columns);
+  let column = index % columns;
+  if (direction === 'rtl') column = columns - 1 - column;
+  if (direction === 'btt') row = rows - 1 - row;
+  return { row, column };
+}
+
+function slotsOf(c: GlyphCount): number {
+  return c.full + (c.partial > 0 ? 1 : 0);
+}
+
+export function repeatLayout(ctx: LayoutContext): ModeResult {
+  const shared = (ctx.spec.encoding as RepeatEncoding).arrangement === 'shared-grid';
+  const unit = resolveUnit(ctx.spec, { maxGlyphsPerCategory: shared ? 100 : 50, sharedGrid: shared });
+  ctx.warnings.push(...unit.warnings);
+  const result = shared ? sharedGrid(ctx, unit.counts, unit.unit) : perCategory(ctx, unit.counts, unit.unit);
+  return { ...result, unitChoice: unit.choice };
+}
+
+function legendSentence(ctx: LayoutContext, unit: number): string {
+  const text = unitLegendText(unit, ctx.spec.encoding.unitName ?? '');
+  return ctx.spec.encoding.rounding === 'whole' ? `${text} (counts rounded to whole glyphs)` : text;
+}
+
+function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): ModeResult {
+  const { spec, box, rows, book } = ctx;
+  const { layout } = spec;
+  const direction = cutDirection(layout.direction);
+  const lm = lineMetrics(TEXT_SIZE_MM.label);
+  const vm = lineMetrics(TEXT_SIZE_MM.valueLabel);
+  const valueTexts = rows.map((r) => formatValue(r.value));
+  // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
+  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, TEXT_SIZE_MM.label) : []));
+  const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, TEXT_SIZE_MM.label))) + LABEL_PAD_MM : 0;
+  const valueColMm = layout.valueLabels ? VALUE_PAD_MM + Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
+  const gridXMm = box.x + labelColMm;
+  const gridRoomMm = box.width - labelColMm - valueColMm;
+  const slots = counts.map(slotsOf);
+  const mostSlots = Math.max(1, ...slots);
+  const glyphs = [...new Set(rows.map((r) => r.glyph))];
+  const keyFactor = sizePerRootInk([ctx.chartGlyph]);
+  const firstLineMm = Math.max(layout.labels ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
+
+
+  const plan = (sizeMm: number) => {
+    const g = gridAt(glyphs, sizeMm, layout.gapRatio);
+    const columns = layout.columns === 'auto' ? autoColumns(gridRoomMm, g.cellWMm, g.gapMm, mostSlots) : layout.columns;
+    const offsetMm = Math.max(0, (firstLineMm - g.cellHMm) / 2);
+    const rowsPer = slots.map((n) => Math.max(1, Math.ceil(n / columns)));
+    // The first label line is centred on the first glyph row; further lines hang below it.
+    const labelTopMm = Math.max(0, offsetMm + g.cellHMm / 2 + lm.capHeightMm / 2 - lm.ascentMm);
+    const bandMm = rowsPer.map((r, i) =>
+      Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
+    );
+    const bandGapMm = g.gapMm + 2;
+    const keyHeightMm = Math.sqrt(g.inkMm2) * keyFactor.height;
+    const heightMm = bandMm.reduce((a, b) => a + b, 0) + (rows.length - 1) * bandGapMm + (layout.legend ? unitLegendHeightMm(keyHeightMm) : 0);
+    return { ...g, columns, offsetMm, rowsPer, bandMm, bandGapMm, heightMm };
+  };
+  const fits = (sizeMm: number) => {
+    const p = plan(sizeMm);
+    return gridWidthMm(p.columns, p) <= gridRoomMm + EPS_MM && p.heightMm <= box.height + EPS_MM;
+  };
+  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph rows'));
+  const shapeFor = (g: ResolvedGlyph) => book.shape(g, p.inkMm2);
+  const fullWidthMm = gridWidthMm(p.columns, p);
+
+  const marks: SceneMark[] = [];
+  const texts: SceneText[] = [];
+  let topMm = box.y;
+  rows.forEach((row, i) => {
+    const count = counts[i];
+    const shape = shapeFor(row.glyph);
+    const rowTopMm = topMm + p.offsetMm;
+    const pieces: SceneGlyph[] = [];
+    for (let j = 0; j < slots[i]; j++) {
+      const { row: r, column: c } = slotCell(j, p.columns, p.rowsPer[i], direction);
+      const x = gridXMm + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+      const y = rowTopMm + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
+      if (j < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1 });
+      else pieces.push({ region: book.band(shape, 0, count.partial, direction, x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial });
+    }
+    marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces, intended: count.drawn });
+
+    const baselineMm = rowTopMm + p.cellHMm / 2 + lm.capHeightMm / 2;
+    if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, owner: row.id }, labelText[i], lm.lineHeightMm));
+    if (layout.valueLabels) {
+      // On one left-to-right row the value follows its last glyph, like a bar-end label; otherwise it
+      // stands after the grid.
+      const oneRow = slots[i] <= p.columns && direction === 'ltr';
+      const endMm = oneRow ? gridXMm + gridWidthMm(Math.max(slots[i], 0), p) : gridXMm + fullWidthMm;
+      texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
+    }
+    topMm += p.bandMm[i] + p.bandGapMm;
+  });
+
+  const legendKeys: SceneLegendKey[] = [];
+  if (layout.legend) {
+    const chartBottomMm = topMm - p.bandGapMm;
+    const legend = placeUnitLegend(book, book.shape(ctx.chartGlyph, p.inkMm2), box, chartBottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
+    texts.push(...legend.texts);
+    legendKeys.push(...legend.legendKeys);
+  }
+  return { marks, texts, lines: [], legendKeys, unit, unitGlyphInkMm2: p.inkMm2 };
+}
+
+function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): ModeResult {
+  const { spec, box, rows, book } = ctx;
+  const { layout } = spec;
+  const direction = cutDirection(layout.direction);
+  if (rows.some((r) => r.glyph !== ctx.chartGlyph)) {
+    ctx.warnings.push({
+      code: 'glyph-ignored',
+      message: 'A shared grid draws every category with the chart glyph (encoding.glyph), so runs can meet inside one glyph; per-row glyphs are not used.',
+    });
+  }
+  const glyph = ctx.chartGlyph;
+  const starts: number[] = [];
+  let total = 0;
+  for (const c of counts) {
+    starts.push(total);
+    total += c.drawn;
+  }
+  const slotCount = total > 1e-9 ? Math.ceil(total - 1e-9) : 0;
+
+  const lm = lineMetrics(TEXT_SIZE_MM.label);
+  const valueTexts = rows.map((r) => formatValue(r.value));
+  const listed = layout.labels || layout.valueLabels;
+  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, TEXT_SIZE_MM.label, 700) : []));
+  const labelWMm = Math.max(0, ...labelText.map((l) => linesWidthMm(l, TEXT_SIZE_MM.label, 700)));
+  const textBlockMm = labelText.map((l) => Math.max(linesHeightMm(l.length, lm), layout.valueLabels ? lm.boxHeightMm : 0));
+  const valueWMm = layout.valueLabels ? Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
+
+  const plan = (sizeMm: number) => {
+    const g = gridAt([glyph], sizeMm, layout.gapRatio);
+    // The key list at the right: a unit glyph in each category's colour, its label and value.
+    const listWMm = listed ? 4 + g.cellWMm + 2 + labelWMm + (layout.valueLabels ? (layout.labels ? 2 : 0) + valueWMm : 0) : 0;
+    const roomMm = box.width - listWMm;
+    let columns = layout.columns === 'auto' ? autoColumns(roomMm, g.cellWMm, g.gapMm, slotCount) : layout.columns;
+    const gridRows = Math.max(1, Math.ceil(slotCount / columns));
+    // As few columns as keep the same number of rows: a less ragged last row.
+    if (layout.columns === 'auto' && slotCount > 0) columns = Math.ceil(slotCount / gridRows);
+    const gridHMm = gridRows * g.cellHMm + (gridRows - 1) * g.gapMm;
+    const entryMm = textBlockMm.map((t) => Math.max(g.cellHMm, t));
+    const listHMm = listed ? entryMm.reduce((a, b) => a + b, 0) + (rows.length - 1) * g.gapMm : 0;
+    const heightMm = Math.max(gridHMm, listHMm) + (layout.legend ? unitLegendHeightMm(g.cellHMm) : 0);
+    return { ...g, columns, gridRows, gridHMm, entryMm, listHMm, roomMm, heightMm };
+  };
+  const fits = (sizeMm: number) => {
+    const p = plan(sizeMm);
+    return gridWidthMm(p.columns, p) <= p.roomMm + EPS_MM && p.heightMm <= box.height + EPS_MM;
+  };
+  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph grid'));
+  const shape = book.shape(glyph, p.inkMm2);
+
+  const pieces: SceneGlyph[][] = rows.map(() => []);
+  for (let j = 0; j < slotCount; j++) {
+    const { row: r, column: c } = slotCell(j, p.columns, p.gridRows, direction);
+    const x = box.x + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+    const y = box.y + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
+    rows.forEach((row, i) => {
+      const from = Math.max(starts[i], j) - j;
+      const to = Math.min(starts[i] + counts[i].drawn, j + 1) - j;
+      if (!(to - from > 1e-9)) return;
+      if (from <= 1e-9 && to >= 1 - 1e-9) pieces[i].push({ ...book.full(shape, x, y), glyph: glyph.name, part: 'full', fraction: 1 });
+      else pieces[i].push({ region: book.band(shape, from, to, direction, x, y), glyph: glyph.name, part: 'partial', fraction: to - from });
+    });
+  }
+  const marks: SceneMark[] = rows.map((row, i) => ({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces[i], intended: counts[i].drawn }));
+
+  const texts: SceneText[] = [];
+  const legendKeys: SceneLegendKey[] = [];
+  if (listed) {
+    const listXMm = box.x + gridWidthMm(p.columns, p) + 4;
+    let topMm = box.y;
+    rows.forEach((row, i) => {
+      const entryMm = p.entryMm[i];
+      const keyYMm = topMm + (entryMm - shape.heightMm) / 2;
+      legendKeys.push({ glyph: glyph.name, region: book.full(shape, listXMm + (p.cellWMm - shape.widthMm) / 2, keyYMm).region, color: row.color, unitValue: unit, unitName: spec.encoding.unitName ?? '' });
+      const baselineMm = topMm + (entryMm - textBlockMm[i]) / 2 + lm.ascentMm;
+      const textXMm = listXMm + p.cellWMm + 2;
+      if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: textXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, weight: 700, owner: row.id }, labelText[i], lm.lineHeightMm));
+      if (layout.valueLabels) {
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: textXMm + (layout.labels ? labelWMm + 2 : 0), yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
+      }
+      topMm += entryMm + p.gapMm;
+    });
+  }
+  if (layout.legend) {
+    const bottomMm = box.y + Math.max(p.gridHMm, p.listHMm);
+    const legend = placeUnitLegend(book, shape, box, bottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
+    texts.push(...legend.texts);
+    legendKeys.push(...legend.legendKeys);
+  }
+  return { marks, texts, lines: [], legendKeys, unit, unitGlyphInkMm2: p.inkMm2 };
+}

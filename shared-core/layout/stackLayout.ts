@@ -1,0 +1,112 @@
+// Stack: a column of unit glyphs per category on one shared baseline. A glyph's share of length is
+// its pitch (slot height plus gap), so slot k sits exactly k pitches above the baseline and n
+// glyphs span n pitches; every column uses the same glyph size, gap and unit.
+import type { SceneGlyph, SceneLegendKey, SceneLine, SceneMark, SceneText } from '../scene';
+import { chooseGlyphSize } from './fitSize';
+import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
+import { sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
+import { INK_COLORS } from './palette';
+import { resolveUnit } from './resolveUnit';
+
+export const STACK_MAX_GLYPH_MM = 18;
+/** The baseline rule: about 1 pt, well above the 0.25 pt hairline printers warn about (common practice). */
+export const RULE_WIDTH_MM = 0.35;
+const TEXT_GAP_MM = 1.5;
+const MIN_COLUMN_GAP_MM = 3;
+const EPS_MM = 1e-9;
+
+export function stackLayout(ctx: LayoutContext): ModeResult {
+  const { spec, box, rows, book } = ctx;
+  const { layout } = spec;
+  const unit = resolveUnit(spec, { maxGlyphsPerCategory: 30 });
+  ctx.warnings.push(...unit.warnings);
+  const counts = unit.counts;
+  const slots = counts.map((c) => c.full + (c.partial > 0 ? 1 : 0));
+  const mostSlots = Math.max(1, ...slots);
+  const glyphs = [...new Set(rows.map((r) => r.glyph))];
+  const f = sizePerRootInk(glyphs);
+  const keyFactor = sizePerRootInk([ctx.chartGlyph]);
+  const n = rows.length;
+
+  // Labels sit under their columns. Too wide for a column: break them at spaces first, then shrink
+  // them (never below the print minimum) if a single word is still too wide.
+  const roomEachMm = Math.max(1, (box.width - (n - 1) * MIN_COLUMN_GAP_MM) / n);
+  let labelSizeMm: number = TEXT_SIZE_MM.label;
+  let labelText = rows.map((r) => (layout.labels ? labelLines(r.label, roomEachMm, labelSizeMm) : []));
+  const widestLine = Math.max(0, ...labelText.map((l) => linesWidthMm(l, labelSizeMm)));
+  if (widestLine > roomEachMm) {
+    labelSizeMm = Math.max(MIN_TEXT_SIZE_MM, (labelSizeMm * roomEachMm) / widestLine);
+    labelText = rows.map((r) => (layout.labels ? labelLines(r.label, roomEachMm, labelSizeMm) : []));
+  }
+  const lm = lineMetrics(labelSizeMm);
+  const vm = lineMetrics(TEXT_SIZE_MM.valueLabel);
+  const valueTexts = rows.map((r) => formatValue(r.value));
+  const labelWMm = Math.max(0, ...labelText.map((l) => linesWidthMm(l, labelSizeMm)));
+  const mostLines = Math.max(0, ...labelText.map((l) => l.length));
+  const valueWMm = layout.valueLabels ? Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
+  const aboveMm = layout.valueLabels ? vm.boxHeightMm + TEXT_GAP_MM : 0;
+  const belowMm = RULE_WIDTH_MM + (mostLines > 0 ? TEXT_GAP_MM + linesHeightMm(mostLines, lm) : 0);
+
+  const plan = (sizeMm: number) => {
+    const root = sizeMm / f.largest;
+    const cellWMm = root * f.width;
+    const cellHMm = root * f.height;
+    const gapMm = layout.gapRatio * sizeMm;
+    const inkMm2 = root * root;
+    const pitchMm = cellHMm + gapMm;
+    const columnWMm = Math.max(cellWMm, labelWMm, valueWMm);
+    const columnGapMm = Math.max(gapMm, MIN_COLUMN_GAP_MM);
+    const widthMm = n * columnWMm + (n - 1) * columnGapMm;
+    const stackMm = (mostSlots - 1) * pitchMm + cellHMm;
+    const legendMm = layout.legend ? unitLegendHeightMm(root * keyFactor.height) : 0;
+    const heightMm = aboveMm + stackMm + belowMm + legendMm;
+    return { cellWMm, cellHMm, gapMm, inkMm2, pitchMm, columnWMm, columnGapMm, widthMm, stackMm, heightMm };
+  };
+  const p = plan(chooseGlyphSize(ctx, STACK_MAX_GLYPH_MM, (s) => {
+    const q = plan(s);
+    return q.widthMm <= box.width + EPS_MM && q.heightMm <= box.height + EPS_MM;
+  }, 'The stacks'));
+
+  const baselineYMm = box.y + aboveMm + p.stackMm;
+  const marks: SceneMark[] = [];
+  const texts: SceneText[] = [];
+  rows.forEach((row, i) => {
+    const shape = book.shape(row.glyph, p.inkMm2);
+    const centreXMm = box.x + i * (p.columnWMm + p.columnGapMm) + p.columnWMm / 2;
+    const x = centreXMm - shape.widthMm / 2;
+    const pieces: SceneGlyph[] = [];
+    const count = counts[i];
+    for (let k = 0; k < slots[i]; k++) {
+      const y = baselineYMm - k * p.pitchMm - shape.heightMm;
+      if (k < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1, slot: k });
+      else pieces.push({ region: book.band(shape, 0, count.partial, 'btt', x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial, slot: k });
+    }
+    marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'length', glyphs: pieces, intended: count.drawn * p.pitchMm });
+
+    if (layout.valueLabels) {
+      const topMm = slots[i] > 0 ? baselineYMm - (slots[i] - 1) * p.pitchMm - p.cellHMm : baselineYMm;
+      texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: centreXMm, yMm: topMm - TEXT_GAP_MM - vm.descentMm, sizeMm: TEXT_SIZE_MM.valueLabel, anchor: 'middle', color: INK_COLORS.muted, owner: row.id }));
+    }
+    if (layout.labels) {
+      const first = { role: 'label' as const, text: row.label, xMm: centreXMm, yMm: baselineYMm + RULE_WIDTH_MM + TEXT_GAP_MM + lm.ascentMm, sizeMm: labelSizeMm, anchor: 'middle' as const, owner: row.id };
+      texts.push(...makeLines(first, labelText[i], lm.lineHeightMm));
+    }
+  });
+
+  const leftMm = box.x;
+  const rightMm = box.x + n * p.columnWMm + (n - 1) * p.columnGapMm;
+  // The rule lies just under the glyphs, so it never touches their ink.
+  const ruleYMm = baselineYMm + RULE_WIDTH_MM / 2;
+  const lines: SceneLine[] = [{ role: 'baseline', x1Mm: leftMm, y1Mm: ruleYMm, x2Mm: rightMm, y2Mm: ruleYMm, widthMm: RULE_WIDTH_MM, color: INK_COLORS.rule }];
+
+  const legendKeys: SceneLegendKey[] = [];
+  if (layout.legend) {
+    const text = unitLegendText(unit.unit, spec.encoding.unitName ?? '');
+    const sentence = spec.encoding.rounding === 'whole' ? `${text} (counts rounded to whole glyphs)` : text;
+    const legend = placeUnitLegend(book, book.shape(ctx.chartGlyph, p.inkMm2), box, baselineYMm + belowMm + LEGEND_GAP_MM, sentence, unit.unit, spec.encoding.unitName ?? '');
+    texts.push(...legend.texts);
+    legendKeys.push(...legend.legendKeys);
+  }
+  return { marks, texts, lines, legendKeys, unit: unit.unit, unitGlyphInkMm2: p.inkMm2, pitchMm: p.pitchMm, baselineYMm, unitChoice: unit.choice };
+}

@@ -1,0 +1,73 @@
+// The whole export chain in one place: parse the document, lay it out, write the SVG, re-measure the written
+// text, gate it, and only then record the measured lie factor in the file's summary.
+import { parseChart, type ChartSpec } from '../document/index';
+import { TallyError, type Warning } from '../errors';
+import { assertVerified, verifySvg, type VerifyOptions, type VerifyReport } from '../integrity/index';
+import { layoutChart } from '../layout/index';
+import type { ChartSummary, Scene } from '../scene/types';
+import { readChartSvg, SUMMARY_ID } from '../svg/index';
+import { writeSvg } from '../svg/writeSvg';
+
+export type RenderOptions = VerifyOptions;
+
+export interface RenderResult {
+  /** The file to write: verified, with the measured lie factor in its summary. */
+  svg: string;
+  /** What verification measured on that very text. */
+  report: VerifyReport;
+  spec: ChartSpec;
+  scene: Scene;
+  /** Layout and verification warnings together (none of them stops the export). */
+  warnings: Warning[];
+}
+
+const SUMMARY_ELEMENT = new RegExp(`(<metadata\\b[^>]*\\bid="${SUMMARY_ID}"[^>]*>)([\\s\\S]*?)(</metadata>)`);
+
+function escapeText(s: string): string {
+  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+}
+
+/** The file with everything outside the summary's text: the part embedding must leave alone. */
+function outsideSummary(svg: string): string {
+  return svg.replace(SUMMARY_ELEMENT, '$1$3');
+}
+
+/**
+ * Writes `measured` into the file's summary by replacing that element's text and nothing else, then proves
+ * it: the file outside the summary is byte-for-byte what was verified, and the summary reads back as written.
+ */
+export function embedMeasured(svg: string, measured: NonNullable<ChartSummary['measured']>): string {
+  const found = SUMMARY_ELEMENT.exec(svg);
+  const summary = readChartSvg(svg).summary;
+  if (!found || !summary) {
+    throw new TallyError('svg-malformed', 'The written SVG has no readable summary to record the measured lie factor in; the writer broke the file format.');
+  }
+  const next: ChartSummary = { ...summary, measured };
+  const out = svg.replace(SUMMARY_ELEMENT, (_m, open: string, _text: string, close: string) => open + escapeText(JSON.stringify(next)) + close);
+  if (outsideSummary(out) !== outsideSummary(svg)) {
+    throw new TallyError('svg-malformed', 'Recording the measured lie factor changed more than the summary; nothing was exported.');
+  }
+  const back = readChartSvg(out).summary?.measured;
+  if (!back || back.pass !== measured.pass || back.lieFactorWorst !== measured.lieFactorWorst || back.spread !== measured.spread) {
+    throw new TallyError('svg-malformed', 'The measured lie factor did not read back from the file\'s summary; nothing was exported.');
+  }
+  return out;
+}
+
+/**
+ * parseChart → layoutChart → writeSvg → verifySvg → gate, then the measured figures go into the summary.
+ * Throws TallyError: 'document-version' / 'document-invalid' for a bad document (negative values included),
+ * 'data-invalid' / 'glyph-unknown' / 'svg-malformed' from layout, and 'gate-refused' (details: the report)
+ * when the written file misstates the data, naming the worst pair and a fix.
+ */
+export function renderChart(doc: unknown, opts: RenderOptions = {}): RenderResult {
+  const spec = parseChart(doc);
+  const scene = layoutChart(spec);
+  const written = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
+  const report = verifySvg(written, { rounding: spec.encoding.rounding, ...opts });
+  assertVerified(report);
+  const svg = embedMeasured(written, { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass });
+  report.summary = readChartSvg(svg).summary;
+  const warnings = [...scene.warnings, ...report.warnings];
+  return { svg, report, spec, scene, warnings };
+}

@@ -1,0 +1,82 @@
+// `tallyglyph audit` and `tallyglyph correct` on real fixture files (tests/fixtures/audit), through the
+// command-line dispatcher; figures follow from the fixtures' stated scale factors (see scenes.ts).
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { main } from '../../../main/cli/index';
+
+const fixtures = fileURLToPath(new URL('../../fixtures/audit/', import.meta.url));
+let dir = '';
+beforeAll(() => {
+  dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-cli-audit-'));
+});
+afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
+
+async function cli(args: string[], cwd = fixtures) {
+  let out = '', err = '';
+  const code = await main(args, { stdout: (s) => void (out += s), stderr: (s) => void (err += s), cwd });
+  return { code, out, err };
+}
+
+describe('tallyglyph audit', () => {
+  it('prints the JSON shape scripts rely on', async () => {
+    const r = await cli(['audit', 'barrels-area.svg', '--values', '1,5.54', '--json']);
+    expect(r.code).toBe(0);
+    const j = JSON.parse(r.out);
+    expect(j.marks.map((m: { id: string }) => m.id)).toEqual(['barrel-1973', 'barrel-1979']);
+    for (const k of ['length', 'area', 'volume']) expect(typeof j.readings[k].lieFactor.worst).toBe('number');
+    // (43.8 - 1) / (5.54 - 1): Tufte's 9.4 (p. 62).
+    expect(j.readings.area.lieFactor.worst).toBeCloseTo(42.8 / 4.54, 2);
+    expect(j.suggested).toBe('area');
+    expect(j.volumeReadable).toBe(true);
+  });
+
+  it('values by mark id and the text report', async () => {
+    const r = await cli(['audit', 'stretched-height.svg', '--values', 'tall=30,short=10']);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Tallyglyph audit of stretched-height\.svg/);
+    expect(r.out).toMatch(/read by their height/);
+  });
+
+  it('a 3-D box drawing is flagged in the report', async () => {
+    const r = await cli(['audit', 'box-3d.svg', '--values', '1,2', '--json']);
+    const j = JSON.parse(r.out);
+    expect(j.volumeReadable).toBe(true);
+    expect(j.marks[0].solidCues).toContain('parallelogram-faces');
+  });
+
+  it('usage errors exit 2 with a sentence', async () => {
+    const r = await cli(['audit', 'barrels-area.svg', '--values', '1,2,3']);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/3 value\(s\) were given but the graphic has 2 mark/);
+    expect((await cli(['audit'])).code).toBe(2);
+    expect((await cli(['audit', 'barrels-area.svg', '--values', '1,abc'])).err).toMatch(/"abc" is not a number/);
+  });
+});
+
+describe('tallyglyph correct', () => {
+  it('writes a corrected file that re-audits within 0.95–1.05, and leaves the supplied file alone', async () => {
+    const before = fs.readFileSync(path.join(fixtures, 'barrels-area.svg'), 'utf8');
+    const out = path.join(dir, 'fixed.svg');
+    const r = await cli(['correct', path.join(fixtures, 'barrels-area.svg'), '--values', '1,5.54', '-o', out], dir);
+    expect(r.code).toBe(0);
+    expect(r.out).toMatch(/Worst area lie factor: 9\.43 before, 1\.00 after/);
+    expect(fs.readFileSync(path.join(fixtures, 'barrels-area.svg'), 'utf8')).toBe(before);
+    const again = await cli(['audit', out, '--values', '1,5.54', '--json'], dir);
+    const j = JSON.parse(again.out);
+    expect(j.readings.area.pass).toBe(true);
+    expect(Math.abs(j.readings.area.lieFactor.worst - 1)).toBeLessThan(0.001);
+  });
+
+  it('refuses to overwrite the supplied file, a count reading, or an image', async () => {
+    const copy = path.join(dir, 'copy.svg');
+    fs.copyFileSync(path.join(fixtures, 'barrels-area.svg'), copy);
+    const r = await cli(['correct', copy, '--values', '1,5.54', '-o', copy], dir);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/would overwrite the supplied file/);
+    expect((await cli(['correct', copy, '--values', '1,5.54', '-o', 'x.svg', '--reading', 'count'], dir)).err).toMatch(/--reading must be area, length or volume/);
+    expect((await cli(['correct', copy, '--values', '1,5.54'], dir)).code).toBe(2);
+  });
+});

@@ -1,0 +1,122 @@
+import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { command } from '../../../main/cli/commands/render';
+import type { CliIO } from '../../../main/cli/types';
+import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
+import { verifySvg } from '../../../shared-core/integrity/index';
+import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
+
+const REPO = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
+const root = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-render-'));
+afterAll(() => fs.rmSync(root, { recursive: true, force: true }));
+let dir = root;
+let n = 0;
+beforeEach(() => {
+  dir = path.join(root, `case-${++n}`);
+  fs.mkdirSync(dir);
+});
+
+function capture(): CliIO & { out: string; err: string } {
+  const io = { out: '', err: '', cwd: '', stdout: (s: string) => void (io.out += s), stderr: (s: string) => void (io.err += s) };
+  io.cwd = dir;
+  return io;
+}
+
+function writeDoc(name: string, doc: unknown): string {
+  fs.writeFileSync(path.join(dir, name), typeof doc === 'string' ? doc : JSON.stringify(doc));
+  return name;
+}
+
+const BIKES = DEMO_CHARTS[0].document;
+const ROUNDED = {
+  format: 'tallyglyph.chart/1',
+  title: 'Rounded to whole glyphs',
+  data: [
+    { label: 'A', value: 12 },
+    { label: 'B', value: 27 },
+  ],
+  encoding: { mode: 'repeat', glyph: 'bike', unit: 10, rounding: 'whole' },
+  page: { width: 150, height: 100, unit: 'mm' },
+};
+
+describe('tallyglyph render', () => {
+  it('writes a verified SVG and says what it measured', async () => {
+    const io = capture();
+    const code = await command.run([writeDoc('bikes.json', BIKES), '-o', 'bikes.svg'], io);
+    expect(code).toBe(0);
+    expect(io.out).toMatch(/^Wrote bikes\.svg: 4 marks read by count, worst lie factor 1\.0000 \(allowed 0\.95-1\.05\)\.\n$/);
+    expect(verifySvg(fs.readFileSync(path.join(dir, 'bikes.svg'), 'utf8')).pass).toBe(true);
+  });
+
+  it('writes a PNG at the asked resolution with pHYs set (PNG spec: 150 ppi = 5906 px/m)', async () => {
+    const io = capture();
+    const code = await command.run([writeDoc('bikes.json', BIKES), '-o', 'bikes.png', '--ppi', '150'], io);
+    expect(code).toBe(0);
+    expect(io.out).toMatch(/PNG 1063 x \d+ px at 150 ppi/);
+    if (hasPngcheck) expect(pngcheckPhys(fs.readFileSync(path.join(dir, 'bikes.png')))).toEqual({ ppmX: 5906, ppmY: 5906, unit: 1 });
+  });
+
+  it('prints the full report with --json', async () => {
+    const io = capture();
+    expect(await command.run([writeDoc('bikes.json', BIKES), '-o', 'bikes.svg', '--json'], io)).toBe(0);
+    const out = JSON.parse(io.out);
+    expect(out.ok).toBe(true);
+    expect(out.report.pass).toBe(true);
+    expect(out.report.marks).toHaveLength(4);
+  });
+
+  it('refuses a misleading chart with one line on stderr, exit 1, and leaves the old file untouched', async () => {
+    fs.writeFileSync(path.join(dir, 'chart.svg'), 'previous chart');
+    const io = capture();
+    const code = await command.run([writeDoc('rounded.json', ROUNDED), '-o', 'chart.svg'], io);
+    expect(code).toBe(1);
+    expect(io.err.split('\n').filter(Boolean)).toHaveLength(1);
+    expect(io.err).toMatch(/B is drawn with 3\.00x as many glyphs as A but its value is only 2\.25x \(lie factor 1\.60/);
+    expect(fs.readFileSync(path.join(dir, 'chart.svg'), 'utf8')).toBe('previous chart');
+    expect(fs.readdirSync(dir).sort()).toEqual(['chart.svg', 'rounded.json']);
+  });
+
+  it('gives the refusal\'s details with --json', async () => {
+    const io = capture();
+    expect(await command.run([writeDoc('rounded.json', ROUNDED), '-o', 'chart.png', '--json'], io)).toBe(1);
+    const out = JSON.parse(io.out);
+    expect(out.ok).toBe(false);
+    expect(out.error.code).toBe('gate-refused');
+    expect(out.report.pass).toBe(false);
+    expect(out.report.lieFactor.worst).toBeCloseTo((3 - 1) / (27 / 12 - 1), 9);
+    expect(fs.existsSync(path.join(dir, 'chart.png'))).toBe(false);
+  });
+
+  it('exits 2 for usage and input errors, writing nothing', async () => {
+    const cases: [string[], RegExp][] = [
+      [[writeDoc('bikes.json', BIKES)], /Give -o out\.svg or -o out\.png/],
+      [[], /which chart document/],
+      [['bikes.json', '-o', 'out.pdf'], /name the output file \.svg or \.png/],
+      [['bikes.json', '-o', 'out.png', '--ppi', 'lots'], /--ppi must be a positive number/],
+      [['bikes.json', '-o', 'out.png', '--ppi', '0'], /--ppi must be a positive number/],
+      [['missing.json', '-o', 'out.svg'], /Could not read "missing\.json": there is no such file/],
+      [[writeDoc('bad.json', '{"format": "tallyglyph.chart/7", "data": []}'), '-o', 'out.svg'], /Unknown document format "tallyglyph\.chart\/7"/],
+      [['bikes.json', '-o', 'out.svg', '--colour'], /Unknown option '--colour'/],
+    ];
+    for (const [argv, message] of cases) {
+      const io = capture();
+      expect(await command.run(argv, io)).toBe(2);
+      expect(io.err).toMatch(message);
+    }
+    expect(fs.readdirSync(dir).sort()).toEqual(['bad.json', 'bikes.json']);
+  });
+
+  it('runs as a real process: node bin/tallyglyph.js render', () => {
+    const input = path.join(dir, writeDoc('bikes.json', BIKES));
+    const output = path.join(dir, 'out.svg');
+    const run = spawnSync(process.execPath, [path.join(REPO, 'bin/tallyglyph.js'), 'render', input, '-o', output], { encoding: 'utf8', timeout: 60_000 });
+    expect(run.stderr).toBe('');
+    expect(run.status).toBe(0);
+    expect(run.stdout).toMatch(/^Wrote /);
+    expect(verifySvg(fs.readFileSync(output, 'utf8')).pass).toBe(true);
+  });
+});

@@ -1,0 +1,312 @@
+// The app in Debian's Chromium, driven by playwright-core (no browser download): the production
+// build served by vite preview on a fixed port, the browser host doing files as downloads.
+import { spawnSync } from 'node:child_process';
+import fs from 'node:fs';
+import os from 'node:os';
+import path from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { chromium, type Browser, type BrowserContext, type Download, type Page } from 'playwright-core';
+import { PNG } from 'pngjs';
+import { preview, type PreviewServer } from 'vite';
+import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
+import { parseChart } from '../../../shared-core/document';
+import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
+import { renderChart } from '../../../shared-core/pipeline';
+import { readPngSize, renderSvgPixels } from '../../../main/raster';
+import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
+
+const REPO = fileURLToPath(new URL('../../../', import.meta.url));
+const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
+const haveChromium = fs.existsSync(CHROMIUM);
+/** Not the dev server's port, so a running `npm run dev:web` does not collide with the tests. */
+const PORT = 5318;
+const BASE = `http://127.0.0.1:${PORT}/`;
+const SHOTS = path.join(REPO, 'test-results', 'browser');
+const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
+
+const BIKES = DEMO_CHARTS[0].document;
+
+let outDir: string;
+let server: PreviewServer | null = null;
+let browser: Browser | null = null;
+let context: BrowserContext;
+let page: Page;
+let pageErrors: string[] = [];
+
+async function readDownload(download: Download): Promise<Buffer> {
+  const file = await download.path();
+  return fs.readFileSync(file);
+}
+
+async function shot(name: string): Promise<void> {
+  fs.mkdirSync(SHOTS, { recursive: true });
+  await page.screenshot({ path: path.join(SHOTS, `${name}.png`) });
+}
+
+const valueCell = (row: number) => page.getByLabel(`Value of row ${row}`, { exact: true });
+const factorRow = (label: string) => page.locator(`[data-testid=factor-table] tr[data-label="${label}"]`);
+
+/** The preview's bytes, read back from the blob URL the <img> shows. */
+async function previewBytes(): Promise<Buffer> {
+  const text = await page.getByTestId('preview-image').evaluate(async (img: HTMLImageElement) => {
+    const bytes = new Uint8Array(await (await fetch(img.src)).arrayBuffer());
+    let s = '';
+    for (let i = 0; i < bytes.length; i += 0x8000) s += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+    return btoa(s);
+  });
+  return Buffer.from(text, 'base64');
+}
+
+async function waitForVerdict(kind: 'pass' | 'refused' | 'waiting'): Promise<void> {
+  // The verdict of the document on screen now, not a faded one left from before the last change.
+  await page.locator(`[data-testid=verdict][data-verdict=${kind}][data-current=true]`).waitFor({ timeout: 30_000 });
+  await page.locator('[data-testid=busy]:not(:has(.spinner))').waitFor({ state: 'attached', timeout: 30_000 });
+}
+
+describe.skipIf(!haveChromium)(`the app in Chromium (skipped when ${CHROMIUM} is missing)`, () => {
+  beforeAll(async () => {
+    outDir = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-web-'));
+    // A separate process, so the build sees NODE_ENV=production rather than the test runner's "test".
+    const vite = path.join(REPO, 'node_modules', 'vite', 'bin', 'vite.js');
+    const built = spawnSync(process.execPath, [vite, 'build', '--config', path.join(REPO, 'renderer', 'vite.config.ts'), '--outDir', outDir, '--logLevel', 'warn'], {
+      cwd: REPO,
+      encoding: 'utf8',
+      env: { ...process.env, NODE_ENV: 'production' },
+      timeout: 120_000,
+    });
+    if (built.status !== 0) throw new Error(`vite build failed: ${built.stderr}${built.stdout}`);
+    server = await preview({
+      configFile: path.join(REPO, 'renderer', 'vite.config.ts'),
+      build: { outDir },
+      preview: { host: '127.0.0.1', port: PORT, strictPort: true },
+      logLevel: 'warn',
+    });
+    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    // One context for the suite: pages share its HTTP and compiled-code caches, so each test's fresh
+    // page loads faster; every test still starts from a newly loaded app.
+    context = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
+  }, 180_000);
+
+  afterAll(async () => {
+    await browser?.close();
+    await server?.close();
+    if (outDir) fs.rmSync(outDir, { recursive: true, force: true });
+  });
+
+  beforeEach(async () => {
+    page = await context.newPage();
+    pageErrors = [];
+    page.on('pageerror', (e) => pageErrors.push(e.message));
+    page.on('console', (m) => {
+      if (m.type() === 'error') pageErrors.push(m.text());
+    });
+    await page.goto(BASE);
+    await waitForVerdict('pass');
+  });
+
+  afterEach(async () => {
+    await page.close();
+    expect(pageErrors, 'errors in the page').toEqual([]);
+  });
+
+  it('opens with the embedded demo chart, checked off the main thread', async () => {
+    expect(await page.getByTestId('doc-name').textContent()).toBe(BIKES.title);
+    expect(await page.getByTestId('demo-picker').inputValue()).toBe(DEMO_CHARTS[0].name);
+    // One row per demo category, in the document's order.
+    const labels = await page.locator('[data-testid=factor-table] tbody th').allTextContents();
+    expect(labels).toEqual(BIKES.data.map((d) => d.label));
+    // 420 rides at 50 rides per glyph is 8.4 glyphs (the demo's own unit).
+    expect(await factorRow('Harbour Gate').locator('td').nth(1).textContent()).toBe(String(420 / 50));
+    expect(page.workers().length).toBeGreaterThan(0);
+    await expect.poll(() => page.getByTestId('export-svg').isEnabled()).toBe(true);
+    await shot('01-demo-opened');
+
+    // Every demo mode can be picked and passes the gate.
+    for (const demo of DEMO_CHARTS.slice(1)) {
+      await page.getByTestId('demo-picker').selectOption(demo.name);
+      await waitForVerdict('pass');
+      expect(await page.getByTestId('doc-name').textContent()).toBe(demo.document.title);
+    }
+    await shot('02-demo-last-mode');
+  });
+
+  it('previews exactly the bytes that Export SVG writes, the same bytes the pipeline makes in Node', async () => {
+    const shown = await previewBytes();
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-svg').click()]);
+    const written = await readDownload(download);
+    expect(download.suggestedFilename()).toBe(`${BIKES.title!.replace(':', '')}.svg`);
+    expect(written.equals(shown)).toBe(true);
+    // The browser bundle and Node run the same pure chain on the same document.
+    expect(written.toString('utf8')).toBe(renderChart(BIKES).svg);
+    await expect.poll(() => page.getByTestId('notice').textContent()).toMatch(/^Exported .*\.svg/);
+  });
+
+  it('updates the honesty check when a value is edited', async () => {
+    await valueCell(1).fill('840');
+    await expect.poll(() => factorRow('Harbour Gate').locator('td').first().textContent(), { timeout: 30_000 }).toBe('840');
+    await waitForVerdict('pass');
+    // 840 rides / 50 rides per glyph = 16.8 glyphs.
+    expect(await factorRow('Harbour Gate').locator('td').nth(1).textContent()).toBe('16.8');
+    await shot('03-value-edited');
+
+    // Left to the layout, the unit is a readable amount: 1, 2, 2.5 or 5 times a power of ten (chooseUnit's rule).
+    await page.getByTestId('unit-automatic').check();
+    await waitForVerdict('pass');
+    expect(await page.getByTestId('unit-readout').textContent()).toMatch(/^(1|2|2\.5|5)0*$|^0\.0*(1|2|25|5)$/);
+  });
+
+  it('refuses a dishonest chart: export disabled with the reason, and the fixes shown', async () => {
+    await page.getByRole('radio', { name: 'Whole glyphs' }).click();
+    await page.getByTestId('unit-input').fill('100');
+    await page.getByTestId('unit-input').press('Enter');
+    await waitForVerdict('refused');
+
+    // Tufte's lie factor for Mill Lane against the smallest value, Station Square, at 100 rides per
+    // whole glyph: 275 -> 3 glyphs, 135 -> 1 glyph; shown effect (3 - 1) / 1, data effect (275 - 135) / 135.
+    const expected = ((3 - 1) / 1) / ((275 - 135) / 135);
+    expect(await page.getByTestId('worst-pair').textContent()).toBe(`Mill Lane vs Station Square: ${expected.toFixed(3)}`);
+    const reason = await page.getByTestId('refusal-reason').textContent();
+    expect(reason).toContain('Mill Lane');
+    expect(reason).toContain(`lie factor ${expected.toFixed(2)}`);
+    expect(await page.getByTestId('suggestions').locator('li').count()).toBeGreaterThan(0);
+
+    for (const id of ['export-svg', 'export-png']) {
+      const button = page.getByTestId(id);
+      expect(await button.isDisabled()).toBe(true);
+      expect(await button.getAttribute('title')).toBe(`Export is blocked: ${reason}`);
+    }
+    expect(await page.getByTestId('export-blocked').isVisible()).toBe(true);
+    // The shortcut is refused too, and says why.
+    await page.locator('body').click({ position: { x: 700, y: 880 } });
+    await page.keyboard.press('Control+e');
+    await expect.poll(() => page.getByTestId('notice').textContent()).toBe(`Export is blocked: ${reason}`);
+    await shot('04-refused');
+  });
+
+  it('undo restores the honest chart step by step, redo brings the refusal back', async () => {
+    await page.getByRole('radio', { name: 'Whole glyphs' }).click();
+    await page.getByTestId('unit-input').fill('100');
+    await page.getByTestId('unit-input').press('Enter');
+    await waitForVerdict('refused');
+
+    await page.getByTestId('undo').click();
+    expect(await page.getByTestId('unit-input').inputValue()).toBe('50');
+    await page.getByTestId('undo').click();
+    await waitForVerdict('pass');
+    expect(await page.getByRole('radio', { name: 'Cut by ink' }).getAttribute('aria-checked')).toBe('true');
+    expect(await page.getByTestId('undo').isDisabled()).toBe(true);
+
+    await page.getByTestId('redo').click();
+    await page.getByTestId('redo').click();
+    await waitForVerdict('refused');
+  });
+
+  it('keyboard shortcuts: Ctrl+Z, Ctrl+Shift+Z, Ctrl+S saves a valid document, Ctrl+E exports', async () => {
+    await valueCell(2).fill('300');
+    await valueCell(2).press('Tab');
+    await page.keyboard.press('Control+z');
+    expect(await valueCell(2).inputValue()).toBe('275');
+    await page.keyboard.press('Control+Shift+Z');
+    expect(await valueCell(2).inputValue()).toBe('300');
+    await waitForVerdict('pass');
+
+    const [saved] = await Promise.all([page.waitForEvent('download'), page.keyboard.press('Control+s')]);
+    const doc = parseChart((await readDownload(saved)).toString('utf8'));
+    expect(doc.data.map((d) => d.value)).toEqual([420, 300, 610, 135]);
+    expect(doc.encoding).toMatchObject({ mode: 'repeat', unit: 50, glyph: 'bike' });
+
+    const [exported] = await Promise.all([page.waitForEvent('download'), page.keyboard.press('Control+e')]);
+    expect((await readDownload(exported)).equals(await previewBytes())).toBe(true);
+  });
+
+  it('shows bad table input inline, keeps it, and blocks export until it is fixed', async () => {
+    await valueCell(2).fill('abc');
+    const problem = page.locator('.cell-problem');
+    await expect.poll(() => problem.textContent()).toBe('"abc" is not a number.');
+    await waitForVerdict('waiting');
+    expect(await page.getByTestId('export-svg').isDisabled()).toBe(true);
+    expect(await page.getByTestId('export-svg').getAttribute('title')).toBe('Fix the table first. Row 2, value: "abc" is not a number.');
+    expect(await valueCell(2).inputValue()).toBe('abc');
+    await shot('05-bad-value');
+
+    await valueCell(2).fill('-5');
+    await expect.poll(() => problem.textContent()).toMatch(/^Negative values cannot be drawn/);
+    expect(await valueCell(2).getAttribute('aria-invalid')).toBe('true');
+
+    await valueCell(2).fill('275');
+    await waitForVerdict('pass');
+    expect(await problem.count()).toBe(0);
+  });
+
+  it('pasting a TSV block into a cell fills the table from that row', async () => {
+    const tsv = 'Quay\t90\nDepot\t45.5\nPark\t12\n';
+    await valueCell(3).evaluate((el, text) => {
+      const data = new DataTransfer();
+      data.setData('text/plain', text);
+      el.dispatchEvent(new ClipboardEvent('paste', { clipboardData: data, bubbles: true, cancelable: true }));
+    }, tsv);
+    await waitForVerdict('pass');
+    // Poll: the verdict seen first may still belong to the document before the paste.
+    await expect.poll(() => page.locator('[data-testid=factor-table] tbody th').allTextContents(), { timeout: 30_000 }).toEqual(['Harbour Gate', 'Mill Lane', 'Quay', 'Depot', 'Park']);
+    expect(await valueCell(4).inputValue()).toBe('45.5');
+    await shot('06-pasted');
+  });
+
+  it('exports a PNG at 300 ppi with the size from the page and pHYs 11811 px/m, showing the same ink as resvg', async () => {
+    const svg = (await previewBytes()).toString('utf8');
+    const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('export-png').click()]);
+    const png = new Uint8Array(await readDownload(download));
+    // 180 x 120 mm at 300 ppi: round(180 / 25.4 x 300) = 2126, round(120 / 25.4 x 300) = 1417 (1 in = 25.4 mm).
+    expect(readPngSize(png)).toEqual({ widthPx: 2126, heightPx: 1417 });
+    if (hasPngcheck) expect(pngcheckPhys(png)).toEqual({ ppmX: 11811, ppmY: 11811, unit: 1 });
+
+    // Chromium drew the PNG; resvg, a separate renderer, draws the same SVG: their ink must agree.
+    const decoded = PNG.sync.read(Buffer.from(png));
+    let chromeInk = 0;
+    for (let i = 3; i < decoded.data.length; i += 4) chromeInk += decoded.data[i] / 255;
+    const reference = renderSvgPixels(svg, { ppi: 300 });
+    let resvgInk = 0;
+    for (let i = 3; i < reference.pixels.length; i += 4) resvgInk += reference.pixels[i] / 255;
+    expect(Math.abs(chromeInk / resvgInk - 1)).toBeLessThan(0.01);
+  });
+
+  it('opens a chart file and lists it as recent; a broken file is refused and the open chart stays', async () => {
+    const cafe = DEMO_CHARTS[1].document;
+    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.getByRole('button', { name: 'Open', exact: true }).click()]);
+    await chooser.setFiles({ name: 'cafe.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(cafe)) });
+    await waitForVerdict('pass');
+    expect(await page.getByTestId('doc-name').textContent()).toBe('cafe.json');
+    // Poll: the verdict seen first may still belong to the document before the open.
+    await expect.poll(() => page.locator('[data-testid=factor-table] tbody th').allTextContents(), { timeout: 30_000 }).toEqual(cafe.data.map((d) => d.label));
+
+    const [broken] = await Promise.all([page.waitForEvent('filechooser'), page.getByRole('button', { name: 'Open', exact: true }).click()]);
+    await broken.setFiles({ name: 'broken.json', mimeType: 'application/json', buffer: Buffer.from('{"format":"tallyglyph.chart/1","data":[') });
+    await expect.poll(() => page.getByTestId('notice').textContent()).toMatch(/^Could not open broken\.json: it is not valid JSON/);
+    expect(await page.getByTestId('doc-name').textContent()).toBe('cafe.json');
+
+    await page.getByRole('button', { name: 'Recent' }).click();
+    const item = page.getByRole('menuitem', { name: /cafe\.json/ });
+    expect(await item.count()).toBe(1);
+    await page.keyboard.press('Escape');
+    expect(await item.count()).toBe(0);
+    await page.getByTestId('demo-picker').selectOption(DEMO_CHARTS[0].name);
+    await waitForVerdict('pass');
+    await page.getByRole('button', { name: 'Recent' }).click();
+    await page.getByRole('menuitem', { name: /cafe\.json/ }).click();
+    await waitForVerdict('pass');
+    expect(await page.getByTestId('doc-name').textContent()).toBe('cafe.json');
+  });
+
+  it('glyph search finds bundled glyphs by name and changes the chart glyph', async () => {
+    await page.getByTestId('chart-glyph').click();
+    await page.getByLabel('Search glyphs').fill('bus');
+    const first = page.locator('.glyph-cell').first();
+    expect(await first.getAttribute('title')).toMatch(/^bus /);
+    await shot('07-glyph-picker');
+    await first.click();
+    await waitForVerdict('pass');
+    expect(await page.getByTestId('chart-glyph').textContent()).toContain('bus');
+    const svg = (await previewBytes()).toString('utf8');
+    expect(svg).toContain('data-glyph="bus"');
+  });
+});
