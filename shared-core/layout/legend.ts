@@ -25,7 +25,24 @@ export function unitLegendHeightMm(keyHeightMm: number): number {
 }
 
 export function unitLegendText(unit: number, unitName: string, prefix = 'one glyph ='): string {
-  return `${prefix} ${formatValue(unit)}${unitName ? ` ${unitName}` : ''}`;
+  const name = unit === 1 ? singularOf(unitName) : unitName;
+  return `${prefix} ${formatValue(unit)}${name ? ` ${name}` : ''}`;
+}
+
+/**
+ * "1 commuter", not "1 commuters": English plural nouns as unit names are the common case, so the
+ * usual regular endings are undone for a unit of exactly one. Irregular plurals (people, children)
+ * and anything unrecognised are kept as written.
+ */
+export function singularOf(unitName: string): string {
+  const words = unitName.trimEnd().split(' ');
+  const last = words[words.length - 1] ?? '';
+  let one = last;
+  if (/[^aeiou]ies$/i.test(last)) one = last.slice(0, -3) + (last.endsWith('IES') ? 'Y' : 'y');
+  else if (/(ss|sh|ch|x|z|us)es$/i.test(last)) one = last.slice(0, -2);
+  else if (/[^su]s$/i.test(last) && last.length > 3) one = last.slice(0, -1);
+  words[words.length - 1] = one;
+  return words.join(' ');
 }
 
 /** Key glyph (a full glyph at the chart's unit ink) and its sentence, in a row starting at topMm. */
