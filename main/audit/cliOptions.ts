@@ -1,5 +1,47 @@
 // Command-line words for the audit commands: seed points, two-point lengths and numbers, read strictly.
+import { parseAnchor, type CorrectOptions } from '../../shared-core/audit/correctSvg';
 import { TallyError } from '../../shared-core/errors';
+import { readSuppliedFile } from './readSupplied';
+
+/** parseArgs options that audit, correct and sheet all take: the data and which elements are the marks. */
+export const MARK_OPTIONS = { values: { type: 'string' }, marks: { type: 'string' } } as const;
+
+/** parseArgs options that correct and sheet add: the reading to make honest, the fixed point, the output file. */
+export const CORRECTION_OPTIONS = {
+  ...MARK_OPTIONS,
+  reading: { type: 'string' },
+  anchor: { type: 'string' },
+  output: { type: 'string', short: 'o' },
+} as const;
+
+export interface CorrectionFlags {
+  values?: string;
+  marks?: string;
+  reading?: string;
+  anchor?: string;
+}
+
+/**
+ * What correct and sheet do alike before correcting: check --reading, read the supplied file (it must be
+ * an SVG; `notSvg` is the sentence when it is not) and turn the flags into correctSvg's options.
+ */
+export function readCorrectionRequest(flags: CorrectionFlags, input: string, notSvg: string): { text: string; options: CorrectOptions } {
+  const reading = flags.reading;
+  if (reading !== undefined && reading !== 'area' && reading !== 'length' && reading !== 'volume') {
+    throw new TallyError('usage', `--reading must be area, length or volume (got "${reading.slice(0, 30)}").`);
+  }
+  const file = readSuppliedFile(input);
+  if (file.kind !== 'svg') throw new TallyError('usage', notSvg);
+  return {
+    text: file.text,
+    options: {
+      values: flags.values,
+      markIds: parseIdList(flags.marks),
+      ...(reading ? { reading } : {}),
+      ...(flags.anchor ? { anchor: parseAnchor(flags.anchor) } : {}),
+    },
+  };
+}
 
 function numbers(text: string, count: number, what: string): number[] {
   const parts = text.split(',').map((s) => s.trim());

@@ -2,7 +2,7 @@
 // recomputed from that pixel coverage, and whether the smallest glyph has enough pixels to stay honest.
 import { SaxesParser } from 'saxes';
 import { TallyError, type Warning } from '../../shared-core/errors';
-import { DISTORTION_LIMITS, gate, lieFactors, type PairSummary, type VerifyReport } from '../../shared-core/integrity/index';
+import { DISTORTION_LIMITS, gate, lieFactors, summariseLieFactors, type VerifyReport } from '../../shared-core/integrity/index';
 import { markCoverages } from '../raster/index';
 
 export interface RasterMarkCheck {
@@ -25,7 +25,7 @@ export interface RasterMarkCheck {
 export interface RasterCheck {
   pass: boolean;
   ppi: number;
-  lieFactor: { worst: number | null; worstPair: { label: string; reference: string } | null; pairs: PairSummary[] };
+  lieFactor: VerifyReport['lieFactor'];
   spread: number | null;
   marks: RasterMarkCheck[];
   /** The smallest single glyph in pixels, with its estimated edge error. */
@@ -294,11 +294,7 @@ export function verifyRaster(svg: string, report: VerifyReport, opts: RasterChec
   const out: RasterCheck = {
     pass: problems.length === 0,
     ppi,
-    lieFactor: {
-      worst: lf.worst?.lieFactor ?? null,
-      worstPair: lf.worst ? { label: lf.worst.label, reference: lf.worst.reference } : null,
-      pairs: lf.pairs.map(toSummary),
-    },
+    lieFactor: summariseLieFactors(lf),
     spread: lf.spread,
     marks,
     smallestGlyph,
@@ -314,21 +310,4 @@ export function verifyRaster(svg: string, report: VerifyReport, opts: RasterChec
 function lieLabel(report: VerifyReport, i: number): string {
   const m = report.marks[i];
   return report.marks.findIndex((o) => o.label === m.label) === i ? m.label : `${m.label} (${m.id})`;
-}
-
-function toSummary(p: ReturnType<typeof lieFactors>['pairs'][number]): PairSummary {
-  const out: PairSummary = {
-    label: p.label,
-    reference: p.reference,
-    data: p.data,
-    graphic: p.graphic,
-    referenceData: p.referenceData,
-    referenceGraphic: p.referenceGraphic,
-    dataRatio: p.dataRatio,
-    graphicRatio: p.graphicRatio,
-    lieFactor: p.lieFactor,
-    basis: p.basis,
-  };
-  if (p.problem) out.problem = p.problem;
-  return out;
 }

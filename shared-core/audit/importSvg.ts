@@ -3,7 +3,7 @@
 import { TallyError, type Warning } from '../errors';
 import { IDENTITY, determinant, multiply, parseTransform, translation, type Matrix } from '../geometry/matrix';
 import type { Box } from '../geometry/region';
-import { collectShapes, type PaintedShape } from '../glyph/collectShapes';
+import { collectShapes, readAttributes, type PaintedShape } from '../glyph/collectShapes';
 import { parseXml, walkElements, type XmlElement } from '../svg/parseXml';
 import { auditLimits, type AuditLimits } from './auditLimits';
 import { countPathCommands, countPoints } from './countPathCommands';
@@ -159,18 +159,6 @@ function checkUseExpansion(root: XmlElement, ids: ReadonlyMap<string, XmlElement
   visit(root, 0, 0);
 }
 
-function styleOf(el: XmlElement): Record<string, string> {
-  const out: Record<string, string> = { ...el.attrs };
-  const st = el.attrs.style;
-  if (st) {
-    for (const decl of st.split(';')) {
-      const i = decl.indexOf(':');
-      if (i > 0) out[decl.slice(0, i).trim().toLowerCase()] = decl.slice(i + 1).replace(/!important/i, '').trim();
-    }
-  }
-  return out;
-}
-
 function firstNumber(v: string | undefined): number | null {
   if (!v) return null;
   const m = /^\s*([+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?)/.exec(v);
@@ -197,7 +185,7 @@ function collectLabels(root: XmlElement): TextLabel[] {
   const out: TextLabel[] = [];
   const visit = (el: XmlElement, parentCtm: Matrix, chain: readonly XmlElement[], fontSize: number) => {
     if (NOT_RENDERED.has(el.name) || el.name === 'foreignObject' || el.name === 'use') return;
-    const a = styleOf(el);
+    const a = readAttributes(el);
     if (a.display === 'none' || a.visibility === 'hidden') return;
     let ctm: Matrix;
     try {

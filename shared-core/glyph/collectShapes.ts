@@ -167,7 +167,7 @@ export function parseViewBox(v: string | undefined): Box | null {
 }
 
 /** Presentation attributes overlaid with the `style` attribute (which wins, per CSS cascade). */
-function readAttributes(el: XmlElement): Record<string, string> {
+export function readAttributes(el: XmlElement): Record<string, string> {
   const out: Record<string, string> = { ...el.attrs };
   const st = el.attrs.style;
   if (st) {

@@ -6,5 +6,5 @@ export { gate, DISTORTION_LIMITS } from './gate';
 export type { GateMode, GateOptions, GateReading, GateResult, GateRounding } from './gate';
 export { preflight, PREFLIGHT_DEFAULTS } from './preflight';
 export type { Finding, PreflightCode, PreflightInput, PreflightOptions } from './preflight';
-export { verifySvg, assertVerified } from './verifySvg';
+export { verifySvg, assertVerified, summariseLieFactors } from './verifySvg';
 export type { MarkMeasurement, PairSummary, VerifyOptions, VerifyReport } from './verifySvg';

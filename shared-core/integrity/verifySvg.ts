@@ -9,7 +9,7 @@ import type { XmlElement } from '../svg/parseXml';
 import { readChartSvg, type ChartSvgFile, type ChartSvgMark, type ChartSvgPiece } from '../svg/readChartSvg';
 import { measureText } from '../text/measureText';
 import { DISTORTION_LIMITS, gate, type GateMode, type GateRounding } from './gate';
-import { lieFactors, type LieFactorPair } from './lieFactor';
+import { lieFactors, type LieFactorPair, type LieFactorReport } from './lieFactor';
 import { preflight, type Finding, type PreflightOptions } from './preflight';
 
 export interface VerifyOptions {
@@ -52,19 +52,10 @@ export interface MarkMeasurement {
 }
 
 /** One lie-factor pair as it is reported and printed (no infinities, so it survives JSON). */
-export interface PairSummary {
-  label: string;
-  reference: string;
-  data: number;
-  graphic: number;
-  referenceData: number;
-  referenceGraphic: number;
-  dataRatio: number;
-  graphicRatio: number | null;
-  lieFactor: number | null;
-  basis: LieFactorPair['basis'];
-  problem?: LieFactorPair['problem'];
-}
+export type PairSummary = Pick<
+  LieFactorPair,
+  'label' | 'reference' | 'data' | 'graphic' | 'referenceData' | 'referenceGraphic' | 'dataRatio' | 'graphicRatio' | 'lieFactor' | 'basis' | 'problem'
+>;
 
 export interface VerifyReport {
   pass: boolean;
@@ -400,11 +391,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     pass,
     mode,
     reading,
-    lieFactor: {
-      worst: lf.worst?.lieFactor ?? null,
-      worstPair: lf.worst ? { label: lf.worst.label, reference: lf.worst.reference } : null,
-      pairs: lf.pairs.map(summarisePair),
-    },
+    lieFactor: summariseLieFactors(lf),
     spread: lf.spread,
     marks,
     problems: allProblems,
@@ -435,6 +422,15 @@ function disjoint(regions: Region[]): boolean {
     }
   }
   return true;
+}
+
+/** The lie factors as a report gives them: the worst, its pair, and every pair; the raster check uses it too. */
+export function summariseLieFactors(lf: LieFactorReport): VerifyReport['lieFactor'] {
+  return {
+    worst: lf.worst?.lieFactor ?? null,
+    worstPair: lf.worst ? { label: lf.worst.label, reference: lf.worst.reference } : null,
+    pairs: lf.pairs.map(summarisePair),
+  };
 }
 
 function summarisePair(p: LieFactorPair): PairSummary {

@@ -3,7 +3,7 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { formatAuditReport } from '../../../shared-core/audit/formatReport';
 import { auditFile } from '../../audit/auditFile';
-import { parseIdList, parseLengths, parseNumberFlag, parseSeeds } from '../../audit/cliOptions';
+import { MARK_OPTIONS, parseIdList, parseLengths, parseNumberFlag, parseSeeds } from '../../audit/cliOptions';
 import { EXIT, type CliCommand } from '../types';
 
 const usage = `Usage: tallyglyph audit <file.svg|file.png|file.jpg> [options]
@@ -33,8 +33,7 @@ export const command: CliCommand = {
       args: argv,
       allowPositionals: true,
       options: {
-        values: { type: 'string' },
-        marks: { type: 'string' },
+        ...MARK_OPTIONS,
         seed: { type: 'string', multiple: true },
         length: { type: 'string', multiple: true },
         tolerance: { type: 'string' },

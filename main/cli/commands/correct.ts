@@ -2,11 +2,10 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
-import { correctSvg, parseAnchor } from '../../../shared-core/audit/correctSvg';
+import { correctSvg } from '../../../shared-core/audit/correctSvg';
 import { formatFactor, formatRatio } from '../../../shared-core/audit/formatNumbers';
 import { TallyError } from '../../../shared-core/errors';
-import { parseIdList } from '../../audit/cliOptions';
-import { readSuppliedFile } from '../../audit/readSupplied';
+import { CORRECTION_OPTIONS, readCorrectionRequest } from '../../audit/cliOptions';
 import { writeFileAtomicSync } from '../../io/atomicWrite';
 import { EXIT, type CliCommand } from '../types';
 
@@ -35,14 +34,7 @@ export const command: CliCommand = {
     const { values, positionals } = parseArgs({
       args: argv,
       allowPositionals: true,
-      options: {
-        values: { type: 'string' },
-        marks: { type: 'string' },
-        reading: { type: 'string' },
-        anchor: { type: 'string' },
-        output: { type: 'string', short: 'o' },
-        json: { type: 'boolean' },
-      },
+      options: { ...CORRECTION_OPTIONS, json: { type: 'boolean' } },
     });
     if (positionals.length !== 1 || !values.output) {
       io.stderr(`tallyglyph correct: give one SVG file and an output file (-o fixed.svg).\n${usage}`);
@@ -51,18 +43,8 @@ export const command: CliCommand = {
     const input = path.resolve(io.cwd, positionals[0]);
     const output = path.resolve(io.cwd, values.output);
     if (sameFile(input, output)) throw new TallyError('usage', 'The output would overwrite the supplied file; choose another name so the original stays as it was.');
-    const reading = values.reading;
-    if (reading !== undefined && reading !== 'area' && reading !== 'length' && reading !== 'volume') {
-      throw new TallyError('usage', `--reading must be area, length or volume (got "${reading.slice(0, 30)}").`);
-    }
-    const file = readSuppliedFile(input);
-    if (file.kind !== 'svg') throw new TallyError('usage', 'correct works on SVG files; an image mock-up cannot be rescaled in place. Audit it with `tallyglyph audit`.');
-    const result = correctSvg(file.text, {
-      values: values.values,
-      markIds: parseIdList(values.marks),
-      ...(reading ? { reading } : {}),
-      ...(values.anchor ? { anchor: parseAnchor(values.anchor) } : {}),
-    });
+    const request = readCorrectionRequest(values, input, 'correct works on SVG files; an image mock-up cannot be rescaled in place. Audit it with `tallyglyph audit`.');
+    const result = correctSvg(request.text, request.options);
     writeFileAtomicSync(output, result.svg);
     if (values.json) {
       io.stdout(JSON.stringify({ output, reading: result.reading, anchor: result.anchor, keptMark: result.keptMark, corrections: result.corrections, warnings: result.warnings, before: result.before, after: result.after }, null, 2) + '\n');

@@ -4,11 +4,10 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { buildSheet } from '../../../shared-core/audit/buildSheet';
-import { correctSvg, parseAnchor } from '../../../shared-core/audit/correctSvg';
+import { correctSvg } from '../../../shared-core/audit/correctSvg';
 import { formatFactor } from '../../../shared-core/audit/formatNumbers';
 import { TallyError } from '../../../shared-core/errors';
-import { parseIdList, parseNumberFlag } from '../../audit/cliOptions';
-import { readSuppliedFile } from '../../audit/readSupplied';
+import { CORRECTION_OPTIONS, parseNumberFlag, readCorrectionRequest } from '../../audit/cliOptions';
 import { DEFAULT_PPI, formatFromPath } from '../../export/exportChart';
 import { writeFileAtomicSync } from '../../io/atomicWrite';
 import { ppiToPpm, rasterizeSvg, readPhysChunk } from '../../raster/index';
@@ -37,15 +36,7 @@ export const command: CliCommand = {
     const { values, positionals } = parseArgs({
       args: argv,
       allowPositionals: true,
-      options: {
-        values: { type: 'string' },
-        marks: { type: 'string' },
-        reading: { type: 'string' },
-        anchor: { type: 'string' },
-        title: { type: 'string' },
-        ppi: { type: 'string' },
-        output: { type: 'string', short: 'o' },
-      },
+      options: { ...CORRECTION_OPTIONS, title: { type: 'string' }, ppi: { type: 'string' } },
     });
     if (positionals.length !== 1 || !values.output) {
       io.stderr(`tallyglyph sheet: give one SVG file and an output file (-o sheet.svg or sheet.png).\n${usage}`);
@@ -57,20 +48,10 @@ export const command: CliCommand = {
     if (fs.existsSync(output) && fs.realpathSync(output) === fs.realpathSync(input)) {
       throw new TallyError('usage', 'The output would overwrite the supplied file; choose another name.');
     }
-    const reading = values.reading;
-    if (reading !== undefined && reading !== 'area' && reading !== 'length' && reading !== 'volume') {
-      throw new TallyError('usage', `--reading must be area, length or volume (got "${reading.slice(0, 30)}").`);
-    }
     const ppi = parseNumberFlag(values.ppi, '--ppi') ?? DEFAULT_PPI;
-    const file = readSuppliedFile(input);
-    if (file.kind !== 'svg') throw new TallyError('usage', 'sheet works on SVG files; an image mock-up cannot be corrected in place.');
-    const fixed = correctSvg(file.text, {
-      values: values.values,
-      markIds: parseIdList(values.marks),
-      ...(reading ? { reading } : {}),
-      ...(values.anchor ? { anchor: parseAnchor(values.anchor) } : {}),
-    });
-    const sheet = buildSheet({ supplied: file.text, corrected: fixed.svg, before: fixed.before, after: fixed.after, reading: fixed.reading, title: values.title });
+    const request = readCorrectionRequest(values, input, 'sheet works on SVG files; an image mock-up cannot be corrected in place.');
+    const fixed = correctSvg(request.text, request.options);
+    const sheet = buildSheet({ supplied: request.text, corrected: fixed.svg, before: fixed.before, after: fixed.after, reading: fixed.reading, title: values.title });
     let bytes: Uint8Array;
     if (format === 'svg') bytes = new TextEncoder().encode(sheet.svg);
     else {

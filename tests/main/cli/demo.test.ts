@@ -1,29 +1,20 @@
-import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
 import { PNG } from 'pngjs';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { command } from '../../../main/cli/commands/demo';
-import type { CliIO } from '../../../main/cli/types';
 import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { verifySvg } from '../../../shared-core/integrity/index';
 import { readChartSvg } from '../../../shared-core/svg/index';
+import { capture, runTallyglyph } from '../../helpers/cli';
 import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
+import { tempRoot } from '../../helpers/tempDirs';
 
-const REPO = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
-const root = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-demo-'));
-afterAll(() => fs.rmSync(root, { recursive: true, force: true }));
-
-function capture(): CliIO & { out: string; err: string } {
-  const io = { out: '', err: '', cwd: root, stdout: (s: string) => void (io.out += s), stderr: (s: string) => void (io.err += s) };
-  return io;
-}
+const root = tempRoot('tallyglyph-demo-');
 
 describe('tallyglyph demo', () => {
   it('writes every mode as SVG and PNG, each verified, with progress lines', async () => {
-    const io = capture();
+    const io = capture(root);
     expect(await command.run(['-o', 'out/demo'], io)).toBe(0);
     const dir = path.join(root, 'out/demo');
     const names = DEMO_CHARTS.map((c) => c.name);
@@ -49,7 +40,7 @@ describe('tallyglyph demo', () => {
   });
 
   it('exits 2 without a folder', async () => {
-    const io = capture();
+    const io = capture(root);
     expect(await command.run([], io)).toBe(2);
     expect(io.err).toMatch(/Give -o <folder>/);
   });
@@ -57,7 +48,7 @@ describe('tallyglyph demo', () => {
   it('runs as a real process: node bin/tallyglyph.js demo', () => {
     const dir = path.join(root, 'subprocess');
     // 150 ppi keeps the run short; the 300 ppi files are checked above.
-    const run = spawnSync(process.execPath, [path.join(REPO, 'bin/tallyglyph.js'), 'demo', '-o', dir, '--ppi', '150'], { encoding: 'utf8', timeout: 120_000 });
+    const run = runTallyglyph(['demo', '-o', dir, '--ppi', '150'], 120_000);
     expect(run.status).toBe(0);
     expect(run.stdout).toMatch(/Wrote 10 verified files/);
     expect(fs.readdirSync(dir)).toHaveLength(10);

@@ -1,33 +1,17 @@
-import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { afterAll, beforeEach, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { command } from '../../../main/cli/commands/render';
-import type { CliIO } from '../../../main/cli/types';
 import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { verifySvg } from '../../../shared-core/integrity/index';
+import { capture, runTallyglyph } from '../../helpers/cli';
 import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
+import { folderPerTest } from '../../helpers/tempDirs';
 
-const REPO = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
-const root = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-render-'));
-afterAll(() => fs.rmSync(root, { recursive: true, force: true }));
-let dir = root;
-let n = 0;
-beforeEach(() => {
-  dir = path.join(root, `case-${++n}`);
-  fs.mkdirSync(dir);
-});
-
-function capture(): CliIO & { out: string; err: string } {
-  const io = { out: '', err: '', cwd: '', stdout: (s: string) => void (io.out += s), stderr: (s: string) => void (io.err += s) };
-  io.cwd = dir;
-  return io;
-}
+const tmp = folderPerTest('tallyglyph-render-');
 
 function writeDoc(name: string, doc: unknown): string {
-  fs.writeFileSync(path.join(dir, name), typeof doc === 'string' ? doc : JSON.stringify(doc));
+  fs.writeFileSync(path.join(tmp.dir, name), typeof doc === 'string' ? doc : JSON.stringify(doc));
   return name;
 }
 
@@ -45,23 +29,23 @@ const ROUNDED = {
 
 describe('tallyglyph render', () => {
   it('writes a verified SVG and says what it measured', async () => {
-    const io = capture();
+    const io = capture(tmp.dir);
     const code = await command.run([writeDoc('bikes.json', BIKES), '-o', 'bikes.svg'], io);
     expect(code).toBe(0);
     expect(io.out).toMatch(/^Wrote bikes\.svg: 4 marks read by count, worst lie factor 1\.0000 \(allowed 0\.95-1\.05\)\.\n$/);
-    expect(verifySvg(fs.readFileSync(path.join(dir, 'bikes.svg'), 'utf8')).pass).toBe(true);
+    expect(verifySvg(fs.readFileSync(path.join(tmp.dir, 'bikes.svg'), 'utf8')).pass).toBe(true);
   });
 
   it('writes a PNG at the asked resolution with pHYs set (PNG spec: 150 ppi = 5906 px/m)', async () => {
-    const io = capture();
+    const io = capture(tmp.dir);
     const code = await command.run([writeDoc('bikes.json', BIKES), '-o', 'bikes.png', '--ppi', '150'], io);
     expect(code).toBe(0);
     expect(io.out).toMatch(/PNG 1063 x \d+ px at 150 ppi/);
-    if (hasPngcheck) expect(pngcheckPhys(fs.readFileSync(path.join(dir, 'bikes.png')))).toEqual({ ppmX: 5906, ppmY: 5906, unit: 1 });
+    if (hasPngcheck) expect(pngcheckPhys(fs.readFileSync(path.join(tmp.dir, 'bikes.png')))).toEqual({ ppmX: 5906, ppmY: 5906, unit: 1 });
   });
 
   it('prints the full report with --json', async () => {
-    const io = capture();
+    const io = capture(tmp.dir);
     expect(await command.run([writeDoc('bikes.json', BIKES), '-o', 'bikes.svg', '--json'], io)).toBe(0);
     const out = JSON.parse(io.out);
     expect(out.ok).toBe(true);
@@ -70,25 +54,25 @@ describe('tallyglyph render', () => {
   });
 
   it('refuses a misleading chart with one line on stderr, exit 1, and leaves the old file untouched', async () => {
-    fs.writeFileSync(path.join(dir, 'chart.svg'), 'previous chart');
-    const io = capture();
+    fs.writeFileSync(path.join(tmp.dir, 'chart.svg'), 'previous chart');
+    const io = capture(tmp.dir);
     const code = await command.run([writeDoc('rounded.json', ROUNDED), '-o', 'chart.svg'], io);
     expect(code).toBe(1);
     expect(io.err.split('\n').filter(Boolean)).toHaveLength(1);
     expect(io.err).toMatch(/B is drawn with 3\.00x as many glyphs as A but its value is only 2\.25x \(lie factor 1\.60/);
-    expect(fs.readFileSync(path.join(dir, 'chart.svg'), 'utf8')).toBe('previous chart');
-    expect(fs.readdirSync(dir).sort()).toEqual(['chart.svg', 'rounded.json']);
+    expect(fs.readFileSync(path.join(tmp.dir, 'chart.svg'), 'utf8')).toBe('previous chart');
+    expect(fs.readdirSync(tmp.dir).sort()).toEqual(['chart.svg', 'rounded.json']);
   });
 
   it('gives the refusal\'s details with --json', async () => {
-    const io = capture();
+    const io = capture(tmp.dir);
     expect(await command.run([writeDoc('rounded.json', ROUNDED), '-o', 'chart.png', '--json'], io)).toBe(1);
     const out = JSON.parse(io.out);
     expect(out.ok).toBe(false);
     expect(out.error.code).toBe('gate-refused');
     expect(out.report.pass).toBe(false);
     expect(out.report.lieFactor.worst).toBeCloseTo((3 - 1) / (27 / 12 - 1), 9);
-    expect(fs.existsSync(path.join(dir, 'chart.png'))).toBe(false);
+    expect(fs.existsSync(path.join(tmp.dir, 'chart.png'))).toBe(false);
   });
 
   it('exits 2 for usage and input errors, writing nothing', async () => {
@@ -103,17 +87,17 @@ describe('tallyglyph render', () => {
       [['bikes.json', '-o', 'out.svg', '--colour'], /Unknown option '--colour'/],
     ];
     for (const [argv, message] of cases) {
-      const io = capture();
+      const io = capture(tmp.dir);
       expect(await command.run(argv, io)).toBe(2);
       expect(io.err).toMatch(message);
     }
-    expect(fs.readdirSync(dir).sort()).toEqual(['bad.json', 'bikes.json']);
+    expect(fs.readdirSync(tmp.dir).sort()).toEqual(['bad.json', 'bikes.json']);
   });
 
   it('runs as a real process: node bin/tallyglyph.js render', () => {
-    const input = path.join(dir, writeDoc('bikes.json', BIKES));
-    const output = path.join(dir, 'out.svg');
-    const run = spawnSync(process.execPath, [path.join(REPO, 'bin/tallyglyph.js'), 'render', input, '-o', output], { encoding: 'utf8', timeout: 60_000 });
+    const input = path.join(tmp.dir, writeDoc('bikes.json', BIKES));
+    const output = path.join(tmp.dir, 'out.svg');
+    const run = runTallyglyph(['render', input, '-o', output]);
     expect(run.stderr).toBe('');
     expect(run.status).toBe(0);
     expect(run.stdout).toMatch(/^Wrote /);

@@ -1,23 +1,14 @@
-import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { afterAll, describe, expect, it } from 'vitest';
+import { describe, expect, it } from 'vitest';
 import { command } from '../../../main/cli/commands/verify';
-import type { CliIO } from '../../../main/cli/types';
 import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { renderChart } from '../../../shared-core/pipeline/index';
+import { capture, runTallyglyph } from '../../helpers/cli';
+import { tempRoot } from '../../helpers/tempDirs';
 import { scaleChart } from '../../shared-core/integrity/chartSvgFixtures';
 
-const REPO = path.resolve(path.dirname(fileURLToPath(import.meta.url)), '../../..');
-const dir = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-verify-'));
-afterAll(() => fs.rmSync(dir, { recursive: true, force: true }));
-
-function capture(): CliIO & { out: string; err: string } {
-  const io = { out: '', err: '', cwd: dir, stdout: (s: string) => void (io.out += s), stderr: (s: string) => void (io.err += s) };
-  return io;
-}
+const dir = tempRoot('tallyglyph-verify-');
 
 const good = path.join(dir, 'trees.svg');
 fs.writeFileSync(good, renderChart(DEMO_CHARTS[2].document).svg);
@@ -29,7 +20,7 @@ fs.writeFileSync(foreign, '<svg xmlns="http://www.w3.org/2000/svg" width="10mm" 
 
 describe('tallyglyph verify', () => {
   it('prints every lie factor and PASS, exit 0, for an honest chart', async () => {
-    const io = capture();
+    const io = capture(dir);
     expect(await command.run(['trees.svg'], io)).toBe(0);
     expect(io.out).toMatch(/^trees\.svg: 4 marks, read by area \(mode scale\)/);
     expect(io.out).toMatch(/Lie factor against "Eastfield" \(the smallest value\):/);
@@ -38,7 +29,7 @@ describe('tallyglyph verify', () => {
   });
 
   it('prints FAIL with the reason and a fix, exit 1, for the squared chart', async () => {
-    const io = capture();
+    const io = capture(dir);
     expect(await command.run(['squared.svg'], io)).toBe(1);
     expect(io.out).toMatch(/Worst lie factor 5\.0000 \(East against North\)/);
     expect(io.out).toMatch(/FAIL: East is drawn with 16\.00x the ink area of North but its value is only 4\.00x/);
@@ -46,7 +37,7 @@ describe('tallyglyph verify', () => {
   });
 
   it('prints the report itself with --json', async () => {
-    const io = capture();
+    const io = capture(dir);
     expect(await command.run(['squared.svg', '--json'], io)).toBe(1);
     const report = JSON.parse(io.out);
     for (const key of ['pass', 'lieFactor', 'spread', 'marks', 'reason', 'suggestions', 'preflight']) expect(report).toHaveProperty(key);
@@ -63,17 +54,17 @@ describe('tallyglyph verify', () => {
       [['a.svg', 'b.svg'], /exactly one SVG file/],
     ];
     for (const [argv, message] of cases) {
-      const io = capture();
+      const io = capture(dir);
       expect(await command.run(argv, io)).toBe(2);
       expect(io.err).toMatch(message);
     }
   });
 
   it('runs as a real process: node bin/tallyglyph.js verify --json', () => {
-    const run = spawnSync(process.execPath, [path.join(REPO, 'bin/tallyglyph.js'), 'verify', good, '--json'], { encoding: 'utf8', timeout: 60_000 });
+    const run = runTallyglyph(['verify', good, '--json']);
     expect(run.status).toBe(0);
     expect(JSON.parse(run.stdout).pass).toBe(true);
-    const fail = spawnSync(process.execPath, [path.join(REPO, 'bin/tallyglyph.js'), 'verify', bad], { encoding: 'utf8', timeout: 60_000 });
+    const fail = runTallyglyph(['verify', bad]);
     expect(fail.status).toBe(1);
   });
 });

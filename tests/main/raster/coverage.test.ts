@@ -1,11 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { TallyError } from '../../../shared-core/errors';
 import { alphaCoverage, coverageMm2, isolateEachMark, isolateMark, markCoverages, renderSvgPixels } from '../../../main/raster';
+import { caught } from '../../helpers/errors';
 import { hasRsvg, resvgAlphaSum, rsvgAlphaSum, rsvgMarkCoverages } from '../../helpers/independent';
-
-const NS = 'xmlns="http://www.w3.org/2000/svg"';
-// A 100 x 50 mm page whose user units are millimetres.
-const mmPage = (body: string) => `<svg ${NS} width="100mm" height="50mm" viewBox="0 0 100 50">${body}</svg>`;
+import { mmPage, SVG_NS as NS } from '../../helpers/svgPage';
 
 const RECT_20x10 = mmPage('<rect x="40" y="20" width="20" height="10"/>');
 
@@ -17,16 +14,6 @@ const CIRCLE_MM2 = Math.PI * 5 * 5; // pi r^2 = 78.54 mm^2
 const RECT_MM2 = 10 * 20;
 
 const relativeError = (measured: number, expected: number) => Math.abs(measured / expected - 1);
-
-function caught(run: () => unknown): TallyError {
-  try {
-    run();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TallyError);
-    return e as TallyError;
-  }
-  throw new Error('expected a TallyError');
-}
 
 describe('alphaCoverage', () => {
   it('sums alpha / 255 over the image and over a region', () => {

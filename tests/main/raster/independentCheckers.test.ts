@@ -2,8 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import { Resvg } from '@resvg/resvg-js';
 import { hasPngcheck, hasRsvg, hasXmllint, pngcheckPhys, pngcheckRun, rsvgAlphaSum, rsvgRender, xmllintValidateSvg11 } from '../../helpers/independent';
-
-const NS = 'xmlns="http://www.w3.org/2000/svg"';
+import { SVG_NS as NS } from '../../helpers/svgPage';
 
 describe.skipIf(!hasXmllint)('xmllintValidateSvg11 (W3C SVG 1.1 Second Edition DTD)', () => {
   it('accepts a minimal valid SVG 1.1 file', () => {
@@ -23,6 +22,19 @@ describe.skipIf(!hasXmllint)('xmllintValidateSvg11 (W3C SVG 1.1 Second Edition D
     // SVG 1.1 links use xlink:href; paint-order arrived with SVG 2.
     expect(xmllintValidateSvg11(`<svg ${NS} version="1.1" width="10" height="10"><rect id="r" width="1" height="1"/><use href="#r"/></svg>`).valid).toBe(false);
     expect(xmllintValidateSvg11(`<svg ${NS} version="1.1" width="10" height="10"><rect paint-order="stroke" width="1" height="1"/></svg>`).valid).toBe(false);
+  });
+
+  it('with a DOCTYPE, counts the internal subset (an ATTLIST there declares data-*) and refuses any DTD but SVG 1.1', () => {
+    // SVG 1.1 allows extending its DTD in the internal subset (docs/chart-svg.md); xmllint --valid reads it.
+    const doctype = (subset: string, id = '-//W3C//DTD SVG 1.1//EN') => `<!DOCTYPE svg PUBLIC "${id}" "http://www.w3.org/Graphics/SVG/1.1/DTD/svg11.dtd"${subset}>`;
+    const body = `<svg ${NS} version="1.1" width="10" height="10"><g data-label="a"><rect width="1" height="1"/></g></svg>`;
+    const declared = xmllintValidateSvg11(`${doctype(' [<!ATTLIST g data-label CDATA #IMPLIED>]')}\n${body}`);
+    expect(declared.output).toBe('');
+    expect(declared.valid).toBe(true);
+    const undeclared = xmllintValidateSvg11(`${doctype('')}\n${body}`);
+    expect(undeclared.valid).toBe(false);
+    expect(undeclared.output).toMatch(/No declaration for attribute data-label/);
+    expect(xmllintValidateSvg11(`${doctype(' [<!ATTLIST g data-label CDATA #IMPLIED>]', '-//W3C//DTD SVG 1.0//EN')}\n${body}`).valid).toBe(false);
   });
 });
 

@@ -2,8 +2,8 @@ import zlib from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { PNG } from 'pngjs';
 import { Resvg } from '@resvg/resvg-js';
-import { TallyError } from '../../../shared-core/errors';
 import { ppiToPpm, readPhysChunk, readPngSize, tableCrc32, validatePngChunks, withPhysChunk } from '../../../main/raster/physChunk';
+import { caught } from '../../helpers/errors';
 import { hasPngcheck, pngcheckPhys, pngcheckRun } from '../../helpers/independent';
 
 const PAGE = '<svg xmlns="http://www.w3.org/2000/svg" width="40" height="20"><rect x="5" y="5" width="20" height="10"/></svg>';
@@ -14,15 +14,9 @@ function plainPng(): Buffer {
 }
 
 function expectRasterInvalid(run: () => unknown, message: RegExp): void {
-  try {
-    run();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TallyError);
-    expect((e as TallyError).code).toBe('raster-invalid');
-    expect((e as TallyError).message).toMatch(message);
-    return;
-  }
-  throw new Error('expected a raster-invalid error');
+  const e = caught(run);
+  expect(e.code).toBe('raster-invalid');
+  expect(e.message).toMatch(message);
 }
 
 /** Offset of the first byte of a chunk's data. */
@@ -125,7 +119,7 @@ describe('validatePngChunks on damaged files', () => {
   });
 });
 
-describe('CRC-32 fallback', () => {
+describe('table CRC-32', () => {
   it('matches zlib.crc32 (an independent implementation) on varied inputs', () => {
     let seed = 12345;
     for (const length of [0, 1, 3, 13, 256, 4099]) {

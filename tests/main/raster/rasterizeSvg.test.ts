@@ -1,22 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { PNG } from 'pngjs';
-import { TallyError } from '../../../shared-core/errors';
 import { alphaCoverage, rasterizeSvg, rasterSizePx, readPhysChunk, readSvgPageSize, renderSvgPixels } from '../../../main/raster';
+import { caught } from '../../helpers/errors';
 import { hasPngcheck, hasRsvg, pngcheckPhys, rsvgRender } from '../../helpers/independent';
-
-const NS = 'xmlns="http://www.w3.org/2000/svg"';
-const page = (attrs: string, body = '') => `<svg ${NS} ${attrs}>${body}</svg>`;
-
-function caught(run: () => unknown): TallyError {
-  try {
-    run();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TallyError);
-    return e as TallyError;
-  }
-  throw new Error('expected a TallyError');
-}
+import { SVG_NS as NS, svgPage as page } from '../../helpers/svgPage';
 
 describe('rasterizeSvg pixel size', () => {
   it('renders a 100 x 50 mm page at 300 ppi as 1181 x 591 px', () => {

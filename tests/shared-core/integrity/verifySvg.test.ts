@@ -1,5 +1,4 @@
 import { describe, expect, it } from 'vitest';
-import { TallyError } from '../../../shared-core/errors';
 import { DISTORTION_LIMITS, verifySvg } from '../../../shared-core/integrity/index';
 import { textOutline } from '../../../shared-core/text/index';
 import {
@@ -15,16 +14,7 @@ import {
   triangleRepeatChart,
   type HandMark,
 } from './chartSvgFixtures';
-
-function caught(run: () => unknown): TallyError {
-  try {
-    run();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TallyError);
-    return e as TallyError;
-  }
-  throw new Error('expected a TallyError');
-}
+import { caught } from '../../helpers/errors';
 
 /** Tufte's lie factor, computed here from its definition (1983, p. 57): effect shown / effect in data, effect = (b − a) / a. */
 const tufte = (graphicA: number, graphicB: number, dataA: number, dataB: number) => (graphicB - graphicA) / graphicA / ((dataB - dataA) / dataA);

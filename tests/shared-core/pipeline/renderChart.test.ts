@@ -7,32 +7,10 @@ import { DISTORTION_LIMITS, verifySvg } from '../../../shared-core/integrity/ind
 import { layoutChart } from '../../../shared-core/layout/index';
 import { embedMeasured, renderChart } from '../../../shared-core/pipeline/index';
 import { readChartSvg, writeSvg } from '../../../shared-core/svg/index';
-
-function caught(run: () => unknown): TallyError {
-  try {
-    run();
-  } catch (e) {
-    expect(e).toBeInstanceOf(TallyError);
-    return e as TallyError;
-  }
-  throw new Error('expected a TallyError');
-}
+import { chartDoc } from '../../helpers/chartDoc';
+import { caught } from '../../helpers/errors';
 
 const MODES = ['repeat', 'stack', 'scale', 'fill'] as const;
-
-function doc(over: Record<string, unknown> = {}) {
-  return {
-    format: 'tallyglyph.chart/1',
-    title: 'Test chart',
-    data: [
-      { label: 'Alder Street', value: 30 },
-      { label: 'Birch Road', value: 55 },
-    ],
-    encoding: { mode: 'repeat', glyph: 'bike', unit: 10 },
-    page: { width: 150, height: 100, unit: 'mm' },
-    ...over,
-  };
-}
 
 const withoutSummary = (svg: string) => svg.replace(/(<metadata\b[^>]*>)[\s\S]*?(<\/metadata>)/, '$1$2');
 
@@ -65,14 +43,14 @@ describe('renderChart on the demo (one chart per mode and a parts-of-whole icon 
 describe('renderChart refuses what it cannot draw honestly', () => {
   it.each(MODES)('refuses a negative value in mode %s, saying why', (mode) => {
     const encoding = mode === 'fill' ? { mode, glyph: 'drop' } : { mode, glyph: 'bike', ...(mode === 'scale' ? {} : { unit: 10 }) };
-    const e = caught(() => renderChart(doc({ encoding, data: [{ label: 'Gain', value: 12 }, { label: 'Loss', value: -4 }] })));
+    const e = caught(() => renderChart(chartDoc({ encoding, data: [{ label: 'Gain', value: 12 }, { label: 'Loss', value: -4 }] })));
     expect(e.code).toBe('document-invalid');
     expect(e.message).toMatch(/data\[1\]\.value: is negative \(-4\): a count, area or length of ink cannot show a negative amount/);
   });
 
   it('refuses whole-glyph rounding that misstates the data, naming the worst pair with both numbers and a fix', () => {
     // 12 and 27 at 10 per glyph round to 1 and 3 glyphs: drawn 3.00x for 2.25x, lie factor (3 − 1) / (2.25 − 1) = 1.6 (Tufte 1983, p. 57).
-    const e = caught(() => renderChart(doc({ data: [{ label: 'A', value: 12 }, { label: 'B', value: 27 }], encoding: { mode: 'repeat', glyph: 'bike', unit: 10, rounding: 'whole' } })));
+    const e = caught(() => renderChart(chartDoc({ data: [{ label: 'A', value: 12 }, { label: 'B', value: 27 }], encoding: { mode: 'repeat', glyph: 'bike', unit: 10, rounding: 'whole' } })));
     expect(e.code).toBe('gate-refused');
     expect(e.message).toMatch(/B is drawn with 3\.00x as many glyphs as A but its value is only 2\.25x \(lie factor 1\.60, allowed 0\.95–1\.05\)/);
     expect(e.message).toMatch(/Try: .*ink-cut/);
@@ -82,24 +60,24 @@ describe('renderChart refuses what it cannot draw honestly', () => {
   });
 
   it('refuses NaN, Infinity and empty data with the field named', () => {
-    expect(caught(() => renderChart(doc({ data: [{ label: 'A', value: Number.NaN }, { label: 'B', value: 2 }] }))).message).toMatch(/data\[0\]\.value: expected a finite number, got NaN/);
-    expect(caught(() => renderChart(doc({ data: [{ label: 'A', value: 1 }, { label: 'B', value: Infinity }] }))).message).toMatch(/data\[1\]\.value: expected a finite number, got Infinity/);
-    expect(caught(() => renderChart(doc({ data: [] }))).message).toMatch(/data: is empty/);
+    expect(caught(() => renderChart(chartDoc({ data: [{ label: 'A', value: Number.NaN }, { label: 'B', value: 2 }] }))).message).toMatch(/data\[0\]\.value: expected a finite number, got NaN/);
+    expect(caught(() => renderChart(chartDoc({ data: [{ label: 'A', value: 1 }, { label: 'B', value: Infinity }] }))).message).toMatch(/data\[1\]\.value: expected a finite number, got Infinity/);
+    expect(caught(() => renderChart(chartDoc({ data: [] }))).message).toMatch(/data: is empty/);
   });
 
   it('refuses 10^9 units at one per glyph and suggests a unit that fits', () => {
-    const e = caught(() => renderChart(doc({ data: [{ label: 'A', value: 1e9 }, { label: 'B', value: 5 }], encoding: { mode: 'repeat', glyph: 'bike', unit: 1 } })));
+    const e = caught(() => renderChart(chartDoc({ data: [{ label: 'A', value: 1e9 }, { label: 'B', value: 5 }], encoding: { mode: 'repeat', glyph: 'bike', unit: 1 } })));
     expect(e.code).toBe('data-invalid');
     expect(e.message).toMatch(/would need 1,000,000,005 glyphs; the limit is 2,000\. Use a unit of [\d,]+ or more/);
   });
 
   it('refuses an unknown glyph (with close names), invalid inline SVG and an unknown format version', () => {
-    const unknown = caught(() => renderChart(doc({ encoding: { mode: 'repeat', glyph: 'bicyclee', unit: 10 } })));
+    const unknown = caught(() => renderChart(chartDoc({ encoding: { mode: 'repeat', glyph: 'bicyclee', unit: 10 } })));
     expect(unknown.code).toBe('glyph-unknown');
     expect(unknown.message).toMatch(/Closest names: bike/);
-    const inline = caught(() => renderChart(doc({ encoding: { mode: 'repeat', glyph: { svg: '<svg><path d="M0 0 L' }, unit: 10 } })));
+    const inline = caught(() => renderChart(chartDoc({ encoding: { mode: 'repeat', glyph: { svg: '<svg><path d="M0 0 L' }, unit: 10 } })));
     expect(inline.code).toBe('svg-malformed');
-    const version = caught(() => renderChart(doc({ format: 'tallyglyph.chart/9' })));
+    const version = caught(() => renderChart(chartDoc({ format: 'tallyglyph.chart/9' })));
     expect(version.code).toBe('document-version');
     expect(version.message).toMatch(/Known versions: "tallyglyph\.chart\/1"/);
   });
@@ -110,17 +88,17 @@ describe('renderChart refuses what it cannot draw honestly', () => {
       { label: 'Bike', value: 75, glyph: 'bike' },
       { label: 'On foot', value: 33, glyph: 'walker' },
     ];
-    const { report } = renderChart(doc({ data, encoding: { mode: 'stack', glyph: 'person', unit: 10 } }));
+    const { report } = renderChart(chartDoc({ data, encoding: { mode: 'stack', glyph: 'person', unit: 10 } }));
     expect(report.pass).toBe(true);
     // One unit of ink per glyph whatever its shape, so lengths follow the values.
     for (const m of report.marks) expect(m.glyphs).toBeCloseTo(m.value / 10, 3);
   });
 
   it('draws a single category and all-equal values, with a note where nothing can be compared', () => {
-    const single = renderChart(doc({ data: [{ label: 'Only', value: 40 }] }));
+    const single = renderChart(chartDoc({ data: [{ label: 'Only', value: 40 }] }));
     expect(single.report.pass).toBe(true);
     expect(single.report.notes.join(' ')).toMatch(/no second value/);
-    const equal = renderChart(doc({ data: [{ label: 'A', value: 30 }, { label: 'B', value: 30 }, { label: 'C', value: 30 }] }));
+    const equal = renderChart(chartDoc({ data: [{ label: 'A', value: 30 }, { label: 'B', value: 30 }, { label: 'C', value: 30 }] }));
     expect(equal.report.pass).toBe(true);
     expect(equal.report.lieFactor.pairs.every((p) => p.basis === 'ratio' && Math.abs((p.lieFactor as number) - 1) < 1e-3)).toBe(true);
   });
@@ -163,10 +141,11 @@ const chartArb = fc
     };
   });
 
-const PROPERTY_RUNS = 200;
+// "Thousands of random datasets": 2,000 small charts take about a minute on two cores.
+const PROPERTY_RUNS = 2000;
 
 describe('renderChart properties (fast-check)', () => {
-  it(`every file it produces re-verifies within the gate from the file alone, and every refusal names a reason (${PROPERTY_RUNS} random charts)`, () => {
+  it(`every file it produces re-verifies within the gate from the file alone, and every refusal names a reason (${PROPERTY_RUNS} random charts)`, { timeout: 600_000 }, () => {
     const tally = { passed: 0, refused: 0, inkCutRefused: 0, codes: new Map<string, number>() };
     fc.assert(
       fc.property(chartArb, (document) => {

@@ -1,3 +1,4 @@
+import zlib from 'node:zlib';
 import { describe, expect, it } from 'vitest';
 import { PNG } from 'pngjs';
 import { ppiToPpm, pngCrc32, readPhysChunk, validatePngChunks, withPhysChunk } from '../../../shared-core/png';
@@ -39,9 +40,20 @@ describe('withPhysChunk (pure)', () => {
     expect(pngcheckPhys(out)).toEqual({ ppmX: 11811, ppmY: 11811, unit: 1 });
   });
 
-  it('writes the same bytes as the Node version in main/raster, so one can replace the other', () => {
-    const png = tinyPng(5, 4);
-    expect(Buffer.from(withPhysChunk(png, 300)).equals(nodeWithPhysChunk(png, 300))).toBe(true);
+  it('writes chunk CRCs that agree with zlib\'s independent CRC-32 (PNG spec §5.3: CRC over type and data)', () => {
+    const png = withPhysChunk(tinyPng(5, 4), 300);
+    const view = new DataView(png.buffer, png.byteOffset, png.byteLength);
+    let checked = 0;
+    for (let at = 8; at < png.length; ) {
+      const length = view.getUint32(at);
+      const typeAndData = png.subarray(at + 4, at + 8 + length);
+      expect(view.getUint32(at + 8 + length)).toBe(zlib.crc32(typeAndData));
+      checked += 1;
+      at += 12 + length;
+    }
+    expect(checked).toBeGreaterThanOrEqual(4); // IHDR, pHYs, IDAT, IEND
+    // The Node wrapper hands back the same bytes as a Buffer.
+    expect(Buffer.from(png).equals(nodeWithPhysChunk(tinyPng(5, 4), 300))).toBe(true);
   });
 
   it('refuses a file that is not a PNG or is damaged', () => {

@@ -1,5 +1,6 @@
 // writeSvg against docs/chart-svg.md, checked with tools that are not this project: xmllint validating
-// against the W3C SVG 1.1 DTD (w3c-sgml-lib), xmllint's XPath for reading values back, and resvg rendering.
+// against the W3C SVG 1.1 DTD (w3c-sgml-lib) together with the file's internal subset, xmllint's XPath for
+// reading values back, and resvg rendering.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -10,7 +11,7 @@ import { TallyError } from '../../../shared-core/errors';
 import { layoutChart } from '../../../shared-core/layout';
 import type { Scene } from '../../../shared-core/scene';
 import { writeSvg } from '../../../shared-core/svg';
-import { hasXmllint, resvgAlphaSum, SVG11_DTD } from '../../helpers/independent';
+import { hasXmllint, resvgAlphaSum, xmllintValidateSvg11 } from '../../helpers/independent';
 
 const PAGE = { width: 180, height: 120, unit: 'mm' } as const;
 
@@ -40,21 +41,6 @@ function withFile<T>(svg: string, work: (file: string) => T): T {
   }
 }
 
-/**
- * SVG 1.1 validity including the document's internal DTD subset. The shared helper xmllintValidateSvg11 uses
- * --dtdvalid, which validates against the external DTD alone and ignores the internal subset, so every
- * declared data-* attribute would count as undeclared. Here xmllint reads the document's own DOCTYPE
- * (--valid) and resolves the SVG 1.1 public identifier offline through the XML catalog that w3c-sgml-lib
- * ships beside the DTDs (schema/dtd/catalog.xml maps "-//W3C//DTD SVG 1.1//EN" to REC-SVG11-20110816/svg11.dtd).
- */
-function xmllintValidWithSubset(svg: string): { valid: boolean; output: string } {
-  const catalog = path.join(path.dirname(path.dirname(SVG11_DTD)), 'catalog.xml');
-  return withFile(svg, (file) => {
-    const r = spawnSync('xmllint', ['--noout', '--nonet', '--valid', file], { encoding: 'utf8', env: { ...process.env, XML_CATALOG_FILES: catalog }, timeout: 60_000 });
-    return { valid: r.status === 0 && !r.error, output: `${r.stdout ?? ''}${r.stderr ?? ''}` };
-  });
-}
-
 /** An XPath string value read by xmllint, not by this project's parser. */
 function xpath(svg: string, expr: string): string {
   return withFile(svg, (file) => {
@@ -70,14 +56,14 @@ const svgRoot = "/*[local-name()='svg']";
 describe.skipIf(!hasXmllint)('writeSvg output validates as SVG 1.1 (xmllint, W3C DTD)', () => {
   it('the validity check itself rejects an attribute the subset does not declare', () => {
     const svg = writeSvg(sceneOf('repeat')).replace('class="tg-mark"', 'class="tg-mark" data-undeclared="1"');
-    const { valid, output } = xmllintValidWithSubset(svg);
+    const { valid, output } = xmllintValidateSvg11(svg);
     expect(valid).toBe(false);
     expect(output).toMatch(/data-undeclared/);
   });
 
   it.each(MODES.map(([name]) => name))('%s validates, with and without <use> references and as live text', (name) => {
     for (const opts of [{}, { useReferences: true }, { outlineText: false }]) {
-      const { valid, output } = xmllintValidWithSubset(writeSvg(sceneOf(name), opts));
+      const { valid, output } = xmllintValidateSvg11(writeSvg(sceneOf(name), opts));
       expect(output).toBe('');
       expect(valid).toBe(true);
     }

@@ -2,24 +2,15 @@ import opentype from 'opentype.js';
 import { describe, expect, it } from 'vitest';
 import { notoSans400Base64 } from '../../../assets/fonts/noto-sans-400';
 import { notoSans700Base64 } from '../../../assets/fonts/noto-sans-700';
-import { isTallyError } from '../../../shared-core/errors';
 import { measureText, textOutline, type FontWeight } from '../../../shared-core/text';
 import { readPairKerning } from '../../../shared-core/text/readPairKerning';
+import { codeOf } from '../../helpers/errors';
 
 // An independent parse of the same bytes (Node Buffer for base64, opentype.js for hmtx and OS/2).
 function reference(weight: FontWeight) {
   const bytes = Buffer.from(weight === 400 ? notoSans400Base64 : notoSans700Base64, 'base64');
   const font = opentype.parse(bytes.buffer.slice(bytes.byteOffset, bytes.byteOffset + bytes.byteLength));
   return { font, kerning: readPairKerning(new Uint8Array(bytes)) };
-}
-
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (e) {
-    return isTallyError(e) ? e.code : 'not a TallyError';
-  }
-  return undefined;
 }
 
 describe('measureText', () => {

@@ -1,16 +1,7 @@
 import svgpath from 'svgpath';
 import { describe, expect, it } from 'vitest';
-import { isTallyError } from '../../../shared-core/errors';
 import { loadFont, measureText, textOutline, type TextAnchor } from '../../../shared-core/text';
-
-function codeOf(fn: () => unknown): string | undefined {
-  try {
-    fn();
-  } catch (e) {
-    return isTallyError(e) ? e.code : 'not a TallyError';
-  }
-  return undefined;
-}
+import { codeOf } from '../../helpers/errors';
 
 /** On-curve points of a path (segment end points), read back with svgpath. */
 function endPoints(pathData: string): Array<[number, number]> {
