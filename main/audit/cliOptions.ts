@@ -1,4 +1,6 @@
 // Command-line words for the audit commands: seed points, two-point lengths and numbers, read strictly.
+import fs from 'node:fs';
+import path from 'node:path';
 import { parseAnchor, type CorrectOptions } from '../../shared-core/audit/correctSvg';
 import { TallyError } from '../../shared-core/errors';
 import { readSuppliedFile } from './readSupplied';
@@ -91,4 +93,14 @@ export function parseIdList(text: string | undefined): string[] | undefined {
   const ids = text.split(',').map((s) => s.trim()).filter(Boolean);
   if (!ids.length) throw new TallyError('usage', 'The list of mark ids is empty.');
   return ids;
+}
+
+/** True when two paths name one file (also through links); a missing file is never the same as another. */
+export function sameFile(a: string, b: string): boolean {
+  if (path.resolve(a) === path.resolve(b)) return true;
+  try {
+    return fs.realpathSync(a) === fs.realpathSync(b);
+  } catch {
+    return false;
+  }
 }

@@ -1,11 +1,10 @@
 // `tallyglyph correct`: rescale each mark of a supplied SVG so the reading its geometry suggests becomes honest.
-import fs from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { correctSvg } from '../../../shared-core/audit/correctSvg';
 import { formatFactor, formatRatio } from '../../../shared-core/audit/formatNumbers';
 import { TallyError } from '../../../shared-core/errors';
-import { CORRECTION_OPTIONS, readCorrectionRequest } from '../../audit/cliOptions';
+import { CORRECTION_OPTIONS, readCorrectionRequest, sameFile } from '../../audit/cliOptions';
 import { writeFileAtomicSync } from '../../io/atomicWrite';
 import { EXIT, type CliCommand } from '../types';
 
@@ -59,17 +58,9 @@ export const command: CliCommand = {
     }
     lines.push(`Worst ${r} lie factor: ${formatFactor(result.before.readings[r].lieFactor.worst)} before, ${formatFactor(result.after.readings[r].lieFactor.worst)} after (0.95-1.05 is faithful).`);
     for (const w of result.warnings) lines.push(`Note: ${w.message}`);
-    lines.push(`Wrote ${path.relative(io.cwd, output) || output}.`);
+    lines.push(`Wrote ${values.output}.`);
     io.stdout(lines.join('\n') + '\n');
     return EXIT.ok;
   },
 };
 
-function sameFile(a: string, b: string): boolean {
-  if (path.resolve(a) === path.resolve(b)) return true;
-  try {
-    return fs.realpathSync(a) === fs.realpathSync(b);
-  } catch {
-    return false;
-  }
-}

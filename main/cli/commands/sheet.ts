@@ -1,13 +1,12 @@
 // `tallyglyph sheet`: the supplied SVG and its correction side by side, each with its lie factor, a
 // one-line explanation and the data, written as SVG or PNG (resolution recorded, as export does).
-import fs from 'node:fs';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { buildSheet } from '../../../shared-core/audit/buildSheet';
 import { correctSvg } from '../../../shared-core/audit/correctSvg';
 import { formatFactor } from '../../../shared-core/audit/formatNumbers';
 import { TallyError } from '../../../shared-core/errors';
-import { CORRECTION_OPTIONS, parseNumberFlag, readCorrectionRequest } from '../../audit/cliOptions';
+import { CORRECTION_OPTIONS, parseNumberFlag, readCorrectionRequest, sameFile } from '../../audit/cliOptions';
 import { DEFAULT_PPI, formatFromPath } from '../../export/exportChart';
 import { writeFileAtomicSync } from '../../io/atomicWrite';
 import { ppiToPpm, rasterizeSvg, readPhysChunk } from '../../raster/index';
@@ -45,9 +44,7 @@ export const command: CliCommand = {
     const input = path.resolve(io.cwd, positionals[0]);
     const output = path.resolve(io.cwd, values.output);
     const format = formatFromPath(output);
-    if (fs.existsSync(output) && fs.realpathSync(output) === fs.realpathSync(input)) {
-      throw new TallyError('usage', 'The output would overwrite the supplied file; choose another name.');
-    }
+    if (sameFile(input, output)) throw new TallyError('usage', 'The output would overwrite the supplied file; choose another name so the original stays as it was.');
     const ppi = parseNumberFlag(values.ppi, '--ppi') ?? DEFAULT_PPI;
     const request = readCorrectionRequest(values, input, 'sheet works on SVG files; an image mock-up cannot be corrected in place.');
     const fixed = correctSvg(request.text, request.options);
@@ -66,7 +63,7 @@ export const command: CliCommand = {
     const lines = [
       `Sheet: supplied (${r} lie factor ${formatFactor(fixed.before.readings[r].lieFactor.worst)}) beside corrected (${formatFactor(fixed.after.readings[r].lieFactor.worst)}).`,
       ...[...fixed.warnings, ...sheet.warnings].map((w) => `Note: ${w.message}`),
-      `Wrote ${path.relative(io.cwd, output) || output}.`,
+      `Wrote ${values.output}.`,
     ];
     io.stdout(lines.join('\n') + '\n');
     return EXIT.ok;
