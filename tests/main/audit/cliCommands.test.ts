@@ -6,6 +6,9 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../../../main/cli/index';
+import { verifySvg } from '../../../shared-core/integrity/verifySvg';
+import { marksOnlySvg } from '../../../main/export/index';
+import { hasRsvg, rsvgMarkCoverages } from '../../helpers/independent';
 
 const fixtures = fileURLToPath(new URL('../../fixtures/audit/', import.meta.url));
 let dir = '';
@@ -78,5 +81,33 @@ describe('tallyglyph correct', () => {
     expect(r.err).toMatch(/would overwrite the supplied file/);
     expect((await cli(['correct', copy, '--values', '1,5.54', '-o', 'x.svg', '--reading', 'count'], dir)).err).toMatch(/--reading must be area, length or volume/);
     expect((await cli(['correct', copy, '--values', '1,5.54'], dir)).code).toBe(2);
+  });
+});
+
+describe('tallyglyph correct --rebuild', () => {
+  it('redraws the audited data as a verified repeat chart whose glyph ink, rendered by rsvg-convert, follows the values', async () => {
+    const out = path.join(dir, 'rebuilt.svg');
+    const r = await cli(['correct', 'barrels-area.svg', '--values', '18,54', '--rebuild', 'repeat', '--glyph', 'coin', '--unit', '2', '--unit-name', 'barrels', '-o', out]);
+    expect(r.code, r.err).toBe(0);
+    expect(r.out).toMatch(/verified from the written file: worst lie factor 1\.0000/);
+    const svg = fs.readFileSync(out, 'utf8');
+    const report = verifySvg(svg);
+    expect(report.pass).toBe(true);
+    expect(report.marks.map((m) => m.value)).toEqual([18, 54]);
+    // Independent renderer: 54 / 18 = 3 times the ink (repeat charts read by count, each glyph the same ink).
+    if (hasRsvg) {
+      const ids = [...svg.matchAll(/<g id="(mark-\d+)"/g)].map((m) => m[1]);
+      // Labels and legend are hidden first so only data ink is counted.
+      const [a, b] = rsvgMarkCoverages(marksOnlySvg(svg), ids, 1800);
+      expect(b.px / a.px).toBeGreaterThan(3 * 0.99);
+      expect(b.px / a.px).toBeLessThan(3 * 1.01);
+    }
+  });
+  it('refuses an unknown mode and writes nothing', async () => {
+    const out = path.join(dir, 'never.svg');
+    const r = await cli(['correct', 'barrels-area.svg', '--values', '18,54', '--rebuild', 'pie', '-o', out]);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/repeat or stack/);
+    expect(fs.existsSync(out)).toBe(false);
   });
 });
