@@ -11,7 +11,7 @@ import {
   type EncodingMode,
   type FillTo,
   type GlyphRef,
-  type MarginsMm,
+  type LayoutOptions,
   type PageUnit,
   type Rounding,
 } from '../../../shared-core/document';
@@ -40,18 +40,8 @@ export interface EditorEncoding {
   fillTo: FillTo;
 }
 
-export interface EditorLayout {
-  columns: number | 'auto';
-  gapRatio: number;
-  glyphSizeMm?: number;
-  direction: 'ltr' | 'rtl' | 'btt';
-  colors?: string[];
-  labels: boolean;
-  valueLabels: boolean;
-  legend: boolean;
-  margins: MarginsMm;
-  bleedMm: number;
-}
+/** The editor keeps layout options exactly as the document model defines them. */
+export type EditorLayout = LayoutOptions;
 
 export interface EditorDocument {
   title: string;
