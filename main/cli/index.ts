@@ -63,14 +63,21 @@ export async function main(argv: string[], io: CliIO): Promise<number> {
       return EXIT.usage;
     }
     io.stderr(`tallyglyph ${name}: unexpected failure: ${e instanceof Error ? e.message : String(e)}\n`);
-    return 3;
+    return EXIT.failure;
   }
 }
 
 const isEntry = process.argv[1] && (import.meta.url === pathToFileURL(process.argv[1]).href || process.argv[1].endsWith('tallyglyph.js') || process.argv[1].endsWith('tallyglyph'));
 if (isEntry) {
   const io: CliIO = { stdout: (s) => process.stdout.write(s), stderr: (s) => process.stderr.write(s), cwd: process.cwd() };
-  main(process.argv.slice(2), io).then((code) => {
-    process.exitCode = code;
-  });
+  main(process.argv.slice(2), io).then(
+    (code) => {
+      process.exitCode = code;
+    },
+    (e: unknown) => {
+      // Only a command module that fails to load gets here; still one line, no stack trace.
+      process.stderr.write(`tallyglyph: unexpected failure: ${e instanceof Error ? e.message : String(e)}\n`);
+      process.exitCode = EXIT.failure;
+    },
+  );
 }

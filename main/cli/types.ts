@@ -13,8 +13,8 @@ export interface CliCommand {
   summary: string;
   /** Usage text shown by `tallyglyph help <command>` and on usage errors. */
   usage: string;
-  /** Returns the process exit code: 0 success, 1 refused or failed check, 2 usage or input error. */
+  /** Returns the process exit code: 0 success, 1 refused or failed check, 2 usage or input error, 3 unexpected failure. */
   run(argv: string[], io: CliIO): Promise<number>;
 }
 
-export const EXIT = { ok: 0, refused: 1, usage: 2 } as const;
+export const EXIT = { ok: 0, refused: 1, usage: 2, failure: 3 } as const;

@@ -45,6 +45,14 @@ export function formatFromPath(file: string): ExportFormat {
   throw new TallyError('usage', `Cannot tell the format of "${path.basename(file)}": name the output file .svg or .png.`);
 }
 
+/** The --ppi flag of every command: a plain positive decimal number of pixels per inch, or nothing. */
+export function parsePpi(text: string | undefined): number | undefined {
+  if (text === undefined) return undefined;
+  const ppi = Number(text);
+  if (!/^\s*\d+(\.\d+)?\s*$/.test(text) || !(ppi > 0)) throw new TallyError('usage', `--ppi must be a positive number of pixels per inch, not "${text}".`);
+  return ppi;
+}
+
 function checkPpi(ppi: number): number {
   if (typeof ppi !== 'number' || !Number.isFinite(ppi) || ppi <= 0) {
     throw new TallyError('usage', `The resolution must be a positive number of pixels per inch (got ${String(ppi)}).`);

@@ -12,7 +12,8 @@ export interface PaintedShape {
   d: string;
   /** Current transformation matrix: element user space to root (viewBox) units. */
   ctm: Matrix;
-  fill: { rule: 'nonzero' | 'evenodd' } | null;
+  /** `paint` is the fill as written (a colour, `url(...)`, `currentColor`), for checks that care what shows. */
+  fill: { rule: 'nonzero' | 'evenodd'; paint?: string } | null;
   stroke: StrokeStyle | null;
   /** Identifier of the nearest ancestor (or self) carrying an id, for reporting. */
   id?: string;
@@ -138,7 +139,7 @@ export function collectShapes(root: XmlElement, opts: CollectOptions = {}): Coll
         const strokeOn = style.stroke !== 'none' && style.strokeOpacity > 0 && style.strokeWidth > 0 && style.visible;
         if (fillOn && /^url\(/.test(style.fill)) warn('paint-server', 'A gradient or pattern fill is counted as solid ink over its whole shape.');
         if (strokeOn && /^url\(/.test(style.stroke)) warn('paint-server', 'A gradient or pattern stroke is counted as solid ink over its whole outline.');
-        const fill = fillOn && name !== 'line' ? { rule: style.fillRule } : null;
+        const fill = fillOn && name !== 'line' ? { rule: style.fillRule, paint: style.fill } : null;
         const stroke = strokeOn ? { width: style.strokeWidth, join: style.join, cap: style.cap, miterLimit: style.miterLimit } : null;
         if (fill || stroke) {
           shapes.push({ tag: name, d, ctm, fill, stroke, id, chain });

@@ -1,8 +1,9 @@
 // Re-measures a written chart from its SVG text alone (docs/chart-svg.md): the ink of every mark under the
 // chart's reading, Tufte's lie factor for every pair, the gate, and print preflight. It never sees the
-// layout that produced the file, so what it passes is what a reader of the file gets.
+// layout that produced the file. Beyond geometry it checks that marks show (not in the page's colour, not
+// painted over, fill parts told apart); effects it cannot see (clip paths, masks) are warned about.
 import { TallyError, type Warning } from '../errors';
-import { boxOf, regionArea, unionRegions, type Box, type Region } from '../geometry/region';
+import { boxOf, intersectRegions, regionArea, unionRegions, type Box, type Region } from '../geometry/region';
 import { collectShapes, inkOfShapes, newBudget, type PaintedShape } from '../glyph/index';
 import type { ChartSummary, Reading } from '../scene/types';
 import type { XmlElement } from '../svg/parseXml';
@@ -259,6 +260,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     return { mark, ink, pieces, other: loose.length };
   });
   const legendInks = file.legendKeys.map((_, i) => inkOf(byLegend.get(i) ?? []));
+  checkInkShows(file, collected.shapes, owners, markInks, reading, problems, roughInkOf);
 
   const fulls = (mi: { pieces: PieceInk[] }) => mi.pieces.filter((p) => p.piece.part === 'full' && p.ink.areaMm2 > 0);
 
@@ -348,7 +350,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     return { label, data: m.value, graphic: m.graphic };
   });
   const lf = lieFactors(items);
-  const mode: GateMode = summary && MODE_OF_READING[reading] === summary.mode ? summary.mode : MODE_OF_READING[reading];
+  const mode: GateMode = MODE_OF_READING[reading];
   const verdict = gate(lf, { low, high, mode, reading, ...(opts.rounding ? { rounding: opts.rounding } : {}) });
   const allProblems = [...verdict.problems, ...problems];
   if (!verdict.pass) {
@@ -412,6 +414,88 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
  * True when no two regions' bounding boxes meet, so their union is just all their rings together and the
  * (costly) polygon union can be skipped. Boxes that merely touch count as meeting.
  */
+/** A CSS colour as lower-case #rrggbb where it is a plain colour we can read; otherwise as written. */
+export function normaliseColour(paint: string | undefined): string {
+  const p = (paint ?? '#000000').trim().toLowerCase();
+  const named: Record<string, string> = { white: '#ffffff', black: '#000000' };
+  if (named[p]) return named[p];
+  const short = /^#([0-9a-f])([0-9a-f])([0-9a-f])$/.exec(p);
+  if (short) return `#${short[1]}${short[1]}${short[2]}${short[2]}${short[3]}${short[3]}`;
+  const rgb = /^rgb\(\s*(\d+)\s*,\s*(\d+)\s*,\s*(\d+)\s*\)$/.exec(p);
+  if (rgb) return '#' + rgb.slice(1, 4).map((n) => Math.min(255, Number(n)).toString(16).padStart(2, '0')).join('');
+  return p;
+}
+
+/**
+ * Geometry alone does not make a chart honest: the ink must also show. Refuses marks painted in the
+ * paper's colour, fill charts whose filled and unfilled parts share one colour, and anything painted
+ * over a mark after it (which would hide ink the measurement still counts).
+ */
+function checkInkShows(
+  file: ChartSvgFile,
+  shapes: PaintedShape[],
+  owners: Map<PaintedShape, Owner>,
+  markInks: { mark: ChartSvgMark; ink: Ink }[],
+  reading: Reading,
+  problems: string[],
+  roughInkOf: (shapes: PaintedShape[]) => Ink,
+): void {
+  const paper = file.backgrounds.length ? normaliseColour(backgroundPaint(file.backgrounds[file.backgrounds.length - 1])) : '#ffffff';
+  const paints = new Map<ChartSvgMark, { all: Set<string>; filled: Set<string>; rest: Set<string> }>();
+  shapes.forEach((shape) => {
+    const owner = owners.get(shape);
+    if (owner?.kind !== 'mark') return;
+    const entry = paints.get(owner.mark) ?? { all: new Set<string>(), filled: new Set<string>(), rest: new Set<string>() };
+    paints.set(owner.mark, entry);
+    const colour = shape.fill ? normaliseColour(shape.fill.paint) : shape.stroke ? 'stroke' : paper;
+    entry.all.add(colour);
+    if (owner.piece?.part === 'filled') entry.filled.add(colour);
+    if (owner.piece?.part === 'rest') entry.rest.add(colour);
+  });
+  for (const [mark, p] of paints) {
+    if (p.all.size === 1 && p.all.has(paper)) {
+      problems.push(`"${mark.label}" is painted in the colour of the page (${paper}), so a reader sees nothing of it; give it a colour that shows.`);
+    }
+    if (reading === 'fill' && p.filled.size && p.rest.size && [...p.filled].every((c) => p.rest.has(c))) {
+      problems.push(`The filled and unfilled parts of "${mark.label}" are the same colour, so the fill cannot be seen; paint the unfilled part paler.`);
+    }
+  }
+  // Anything painted after a mark that lands on its ink hides part of it.
+  const firstMarkAt = shapes.findIndex((sh) => owners.get(sh)?.kind === 'mark');
+  if (firstMarkAt < 0) return;
+  const seen: { mark: ChartSvgMark; ink: Ink }[] = [];
+  const inkByMark = new Map(markInks.map((mi) => [mi.mark, mi] as const));
+  const reported = new Set<ChartSvgMark>();
+  for (let i = firstMarkAt; i < shapes.length; i++) {
+    const owner = owners.get(shapes[i]);
+    if (owner?.kind === 'mark') {
+      const mi = inkByMark.get(owner.mark);
+      if (mi && !seen.includes(mi)) seen.push(mi);
+      continue;
+    }
+    const over = roughInkOf([shapes[i]]);
+    if (!over.boxMm) continue;
+    for (const mi of seen) {
+      if (reported.has(mi.mark) || !mi.ink.boxMm || !boxesMeet(over.boxMm, mi.ink.boxMm)) continue;
+      const s = file.page.mmPerUnit;
+      const hidden = regionArea(intersectRegions(over.region, mi.ink.region)) * s * s;
+      if (hidden > 1e-6 * Math.max(mi.ink.areaMm2, 1e-9)) {
+        reported.add(mi.mark);
+        problems.push(`Something painted after "${mi.mark.label}" covers ${num(hidden)} mm² of its ink, so the reader sees less than is measured; nothing may be drawn over a mark.`);
+      }
+    }
+  }
+}
+
+function backgroundPaint(el: XmlElement): string | undefined {
+  const style = /(?:^|;)\s*fill\s*:\s*([^;]+)/.exec(el.attrs.style ?? '')?.[1];
+  return style ?? el.attrs.fill;
+}
+
+function boxesMeet(a: { x: number; y: number; width: number; height: number }, b: { x: number; y: number; width: number; height: number }): boolean {
+  return a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+}
+
 function disjoint(regions: Region[]): boolean {
   const boxes = regions.map((r) => boxOf(r)).sort((a, b) => a.x - b.x);
   for (let i = 0; i < boxes.length; i++) {

@@ -15,6 +15,7 @@ import { resolveGlyphs } from './resolveGlyphs';
 import { scaleLayout } from './scaleLayout';
 import { stackLayout } from './stackLayout';
 import { assertGlyphBudget } from './chooseUnit';
+import { toXmlChars } from '../svg/xmlChars';
 
 export const READING_OF_MODE: Readonly<Record<ChartSpec['encoding']['mode'], Reading>> = Object.freeze({
   repeat: 'count',
@@ -85,7 +86,8 @@ function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['ro
     return {
       id: `mark-${i + 1}`,
       label: oneLine(row.label),
-      dataLabel: row.label,
+      // Cleaned once here so the mark's attribute and the summary's JSON carry the same label.
+      dataLabel: toXmlChars(row.label),
       value: row.value,
       glyph: glyphs[i],
       color,

@@ -6,7 +6,7 @@ import { assertVerified, verifySvg, type VerifyOptions, type VerifyReport } from
 import { layoutChart } from '../layout/index';
 import type { ChartSummary, Scene } from '../scene/types';
 import { readChartSvg, SUMMARY_ID } from '../svg/index';
-import { writeSvg } from '../svg/writeSvg';
+import { DEFAULT_XML_LIMITS, escapeXmlText, writeSvg } from '../svg/index';
 
 export type RenderOptions = VerifyOptions;
 
@@ -22,10 +22,6 @@ export interface RenderResult {
 }
 
 const SUMMARY_ELEMENT = new RegExp(`(<metadata\\b[^>]*\\bid="${SUMMARY_ID}"[^>]*>)([\\s\\S]*?)(</metadata>)`);
-
-function escapeText(s: string): string {
-  return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
-}
 
 /** The file with everything outside the summary's text: the part embedding must leave alone. */
 function outsideSummary(svg: string): string {
@@ -43,7 +39,7 @@ export function embedMeasured(svg: string, measured: NonNullable<ChartSummary['m
     throw new TallyError('svg-malformed', 'The written SVG has no readable summary to record the measured lie factor in; the writer broke the file format.');
   }
   const next: ChartSummary = { ...summary, measured };
-  const out = svg.replace(SUMMARY_ELEMENT, (_m, open: string, _text: string, close: string) => open + escapeText(JSON.stringify(next)) + close);
+  const out = svg.replace(SUMMARY_ELEMENT, (_m, open: string, _text: string, close: string) => open + escapeXmlText(JSON.stringify(next)) + close);
   if (outsideSummary(out) !== outsideSummary(svg)) {
     throw new TallyError('svg-malformed', 'Recording the measured lie factor changed more than the summary; nothing was exported.');
   }
@@ -64,10 +60,15 @@ export function renderChart(doc: unknown, opts: RenderOptions = {}): RenderResul
   const spec = parseChart(doc);
   const scene = layoutChart(spec);
   const written = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
+  if (written.length > DEFAULT_XML_LIMITS.maxChars) {
+    const mb = (written.length / 1e6).toFixed(0);
+    throw new TallyError('data-invalid', `The chart would be a ${mb} MB file, more than Tallyglyph can verify (${DEFAULT_XML_LIMITS.maxChars / 1e6} MB). Use fewer categories or a larger unit, turn on "useReferences" to write each glyph once, or split the chart.`);
+  }
   const report = verifySvg(written, { rounding: spec.encoding.rounding, ...opts });
   assertVerified(report);
   const svg = embedMeasured(written, { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass });
-  report.summary = readChartSvg(svg).summary;
+  // embedMeasured has read the summary back from the file; record the same figures in the report.
+  if (report.summary) report.summary = { ...report.summary, measured: { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass } };
   const warnings = [...scene.warnings, ...report.warnings];
   return { svg, report, spec, scene, warnings };
 }

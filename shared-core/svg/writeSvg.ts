@@ -7,6 +7,7 @@ import { regionToPathData, type Region } from '../geometry/region';
 import type { Scene, SceneLine, SceneMark, SceneText } from '../scene';
 import { mmToPt, textOutline } from '../text';
 import { SUMMARY_ID } from './readChartSvg';
+import { toXmlChars } from './xmlChars';
 
 export interface WriteSvgOptions {
   /**
@@ -34,11 +35,12 @@ export const SVG_DOCTYPE = [
 const FONT_FAMILY = 'Noto Sans';
 const HEX6 = /^#[0-9a-f]{6}$/i;
 
-// Characters XML 1.0 cannot carry at all (controls, lone surrogates, U+FFFE/FFFF) become "?".
-const NOT_XML_CHAR = /[^\t\n\r\u0020-\uD7FF\uE000-\uFFFD\u{10000}-\u{10FFFF}]/gu;
-
+/**
+ * Markup-safe text. U+FFFD is written as a character reference: the safe reader takes a literal one as
+ * the mark of a failed UTF-8 decode and refuses the file.
+ */
 export function escapeXmlText(s: string): string {
-  return s.replace(NOT_XML_CHAR, '?').replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+  return toXmlChars(s).replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/\uFFFD/g, '&#xFFFD;');
 }
 
 /** Attribute values keep tabs and line breaks as character references (a parser would turn them into spaces). */

@@ -91,7 +91,12 @@ async function rebuildAsChart(
   const report = auditSvg(text, options);
   const marks = report.marks.filter((m) => m.value !== null && m.value !== undefined);
   if (marks.length === 0) throw new TallyError('data-invalid', 'No mark has a value to rebuild from; give them with --values.');
-  const title = /<title[^>]*>([^<]{1,200})<\/title>/i.exec(text)?.[1]?.trim();
+  const rawTitle = /<title[^>]*>([^<]{1,200})<\/title>/i.exec(text)?.[1]?.trim();
+  // XML's five predefined entities and numeric references; the safe reader refuses any other entity.
+  const title = rawTitle
+    ?.replace(/&#x([0-9a-f]+);/gi, (_m, h: string) => String.fromCodePoint(Math.min(0x10ffff, parseInt(h, 16))))
+    .replace(/&#(\d+);/g, (_m, d: string) => String.fromCodePoint(Math.min(0x10ffff, Number(d))))
+    .replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&apos;/g, "'").replace(/&amp;/g, '&');
   const doc = {
     format: 'tallyglyph.chart/1',
     ...(title ? { title } : {}),

@@ -6,7 +6,7 @@ import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { isTallyError, TallyError } from '../../../shared-core/errors';
 import { verifySvg } from '../../../shared-core/integrity/index';
 import { renderChart } from '../../../shared-core/pipeline/index';
-import { DEFAULT_PPI, exportFromRender } from '../../export/index';
+import { DEFAULT_PPI, exportFromRender, parsePpi } from '../../export/index';
 import { writeFileAtomic } from '../../io/atomicWrite';
 import { ppiToPpm, readPhysChunk } from '../../raster/index';
 import { EXIT, type CliCommand, type CliIO } from '../types';
@@ -54,8 +54,12 @@ async function run(argv: string[], io: CliIO): Promise<number> {
   }
   const { values } = parsed;
   if (!values.output) return usageError(io, 'where to? Give -o <folder>.');
-  const ppi = values.ppi === undefined ? DEFAULT_PPI : Number(values.ppi);
-  if (!(ppi > 0) || !Number.isFinite(ppi)) return usageError(io, `--ppi must be a positive number of pixels per inch, not "${values.ppi}".`);
+  let ppi: number;
+  try {
+    ppi = parsePpi(values.ppi) ?? DEFAULT_PPI;
+  } catch (e) {
+    return usageError(io, (e as Error).message);
+  }
   const dir = path.resolve(io.cwd, values.output);
   try {
     await fs.mkdir(dir, { recursive: true });

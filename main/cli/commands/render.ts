@@ -3,7 +3,7 @@ import fs from 'node:fs/promises';
 import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { isTallyError, TallyError } from '../../../shared-core/errors';
-import { exportChart, formatFromPath, type ExportResult } from '../../export/index';
+import { exportChart, formatFromPath, parsePpi, type ExportResult } from '../../export/index';
 import { EXIT, type CliCommand, type CliIO } from '../types';
 
 const USAGE = `Usage: tallyglyph render <chart.json> -o <out.svg|out.png> [--ppi 300] [--json]
@@ -40,13 +40,6 @@ async function readTextFile(file: string): Promise<string> {
 /** The refusal in one line: the reason, and for a gate refusal the first suggested fix is already in it. */
 function describeFailure(e: TallyError): string {
   return e.message.replace(/\s*\n\s*/g, ' ');
-}
-
-function parsePpi(text: string | undefined): number | undefined {
-  if (text === undefined) return undefined;
-  const ppi = Number(text);
-  if (!/^\s*\d+(\.\d+)?\s*$/.test(text) || !(ppi > 0)) throw new TallyError('usage', `--ppi must be a positive number of pixels per inch, not "${text}".`);
-  return ppi;
 }
 
 function successText(result: ExportResult, shownPath: string): string {

@@ -6,8 +6,8 @@ import { buildSheet } from '../../../shared-core/audit/buildSheet';
 import { correctSvg } from '../../../shared-core/audit/correctSvg';
 import { formatFactor } from '../../../shared-core/audit/formatNumbers';
 import { TallyError } from '../../../shared-core/errors';
-import { CORRECTION_OPTIONS, parseNumberFlag, readCorrectionRequest, sameFile } from '../../audit/cliOptions';
-import { DEFAULT_PPI, formatFromPath } from '../../export/exportChart';
+import { CORRECTION_OPTIONS, readCorrectionRequest, sameFile } from '../../audit/cliOptions';
+import { DEFAULT_PPI, formatFromPath, parsePpi } from '../../export/exportChart';
 import { writeFileAtomicSync } from '../../io/atomicWrite';
 import { ppiToPpm, rasterizeSvg, readPhysChunk } from '../../raster/index';
 import { EXIT, type CliCommand } from '../types';
@@ -41,11 +41,11 @@ export const command: CliCommand = {
       io.stderr(`tallyglyph sheet: give one SVG file and an output file (-o sheet.svg or sheet.png).\n${usage}`);
       return EXIT.usage;
     }
+    const ppi = parsePpi(values.ppi) ?? DEFAULT_PPI;
     const input = path.resolve(io.cwd, positionals[0]);
     const output = path.resolve(io.cwd, values.output);
     const format = formatFromPath(output);
     if (sameFile(input, output)) throw new TallyError('usage', 'The output would overwrite the supplied file; choose another name so the original stays as it was.');
-    const ppi = parseNumberFlag(values.ppi, '--ppi') ?? DEFAULT_PPI;
     const request = readCorrectionRequest(values, input, 'sheet works on SVG files; an image mock-up cannot be corrected in place.');
     const fixed = correctSvg(request.text, request.options);
     const sheet = buildSheet({ supplied: request.text, corrected: fixed.svg, before: fixed.before, after: fixed.after, reading: fixed.reading, title: values.title });
