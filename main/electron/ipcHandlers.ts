@@ -4,11 +4,14 @@
 
 import fs from 'node:fs/promises';
 import path from 'node:path';
+import { fileURLToPath } from 'node:url';
 import { createHash } from 'node:crypto';
 import { z } from 'zod';
 import { parseChart } from '../../shared-core/document';
 import { TallyError, isTallyError } from '../../shared-core/errors';
 import { verifySvg } from '../../shared-core/integrity';
+import type { RenderResult } from '../../shared-core/pipeline';
+import { parseXml, walkElements } from '../../shared-core/svg';
 import {
   HOST_API_VERSION,
   HOST_CHANNELS,
@@ -26,8 +29,8 @@ import {
   type MenuCommand,
   type RecentChart,
 } from '../../shared-core/host';
+import { exportFromRender } from '../export';
 import { writeFileAtomic } from '../io/atomicWrite';
-import { rasterizeSvg } from '../raster';
 
 export type FileKind = 'chart' | 'svg' | 'png';
 
@@ -54,12 +57,15 @@ export interface HandlerDeps {
   /** Where the recent-files list is kept (a JSON file in the app's user-data folder). */
   recentFile: string;
   files?: FilePort;
-  /** SVG to PNG bytes with the resolution recorded in pHYs. Default: main/raster rasterizeSvg. */
-  rasterize?: (svg: string, ppi: number) => Uint8Array;
+  /**
+   * A checked SVG to PNG bytes; throws TallyError to refuse. Default: verifiedPng, the CLI's own
+   * export path (pixel re-check, small-glyph refusal, pHYs check).
+   */
+  buildPng?: (svg: string, ppi: number) => Uint8Array;
   /**
    * Last check before an export reaches the disk: a sentence saying why the file must not be
    * written, or null. The UI already refuses; this keeps a buggy or hostile renderer from writing
-   * a distorted chart through the host.
+   * a distorted or active file through the host. Default: exportRefusal.
    */
   checkExport?: (svg: string) => string | null;
   now?: () => number;
@@ -68,17 +74,76 @@ export interface HandlerDeps {
 export type HostHandler = (payload: unknown) => Promise<HostResult<unknown>>;
 export type HostHandlers = { readonly [M in HostMethod]: HostHandler };
 
+const ALLOWED_DATA_IMAGE = /^data:image\//i;
+
+/** The local part of a qualified name: `xlink:href` → `href`. */
+function localName(qname: string): string {
+  return qname.slice(qname.indexOf(':') + 1);
+}
+
+/**
+ * Why an SVG could run code or fetch something when opened in a browser or layout program, or
+ * null. The chart writer never emits any of these, so their presence means the text did not come
+ * from it. Refused: <script>, <foreignObject>, event attributes (on…, SVG 2 §15.4 event
+ * attributes), animations that set an href or an event attribute, and any href other than a
+ * fragment (#id) or an embedded data:image/ URL.
+ */
+export function activeContentRefusal(svg: string): string | null {
+  let root;
+  try {
+    root = parseXml(svg);
+  } catch (e) {
+    return isTallyError(e) ? e.message : 'The file is not well-formed XML.';
+  }
+  for (const el of walkElements(root)) {
+    const name = el.name.toLowerCase();
+    if (name === 'script') return 'The SVG contains a <script> element.';
+    if (name === 'foreignobject') return 'The SVG contains a <foreignObject> element.';
+    if (name === 'animate' || name === 'set' || name === 'animatemotion' || name === 'animatetransform') {
+      const target = localName(el.attrs.attributeName ?? '').toLowerCase();
+      if (target === 'href' || target.startsWith('on')) return `The SVG has an <${el.name}> that changes "${target}".`;
+    }
+    for (const [qname, value] of Object.entries(el.attrs)) {
+      const local = localName(qname).toLowerCase();
+      if (local.startsWith('on')) return `The SVG has an event attribute "${qname}" on <${el.name}>.`;
+      if (local === 'href') {
+        const href = value.trim();
+        if (href.startsWith('#') || ALLOWED_DATA_IMAGE.test(href)) continue;
+        const shown = href.length > 60 ? `${href.slice(0, 57)}...` : href;
+        return `The SVG links to "${shown}"; only links inside the file (#…) and embedded images are allowed.`;
+      }
+    }
+  }
+  return null;
+}
+
 /**
  * The export check main.ts uses: the file is re-measured from its text alone, so only a chart that
- * passes the lie-factor gate reaches the disk, whatever the renderer claims.
+ * passes the lie-factor gate reaches the disk, whatever the renderer claims; and it must hold no
+ * active content.
  */
 export function exportRefusal(svg: string): string | null {
+  const active = activeContentRefusal(svg);
+  if (active) return `Not exported: ${active}`;
   try {
     const report = verifySvg(svg);
     return report.pass ? null : `Not exported: ${report.reason ?? 'the chart did not pass the honesty check.'}`;
   } catch (e) {
     return `Not exported: ${isTallyError(e) ? e.message : 'the file could not be checked.'}`;
   }
+}
+
+/**
+ * PNG bytes for a checked SVG by the CLI's export path (main/export exportFromRender): the raster is
+ * re-measured from its pixels, too-small glyphs are refused, and the pHYs chunk must hold `ppi`.
+ * Throws TallyError('gate-refused' | ...) on refusal.
+ */
+export function verifiedPng(svg: string, ppi: number): Uint8Array {
+  const report = verifySvg(svg);
+  if (!report.pass) throw new TallyError('gate-refused', `Not exported: ${report.reason ?? 'the chart did not pass the honesty check.'}`, report);
+  // exportFromRender reads only the file, its report and the warnings; spec and scene stay with the renderer.
+  const rendered: Pick<RenderResult, 'svg' | 'report' | 'warnings'> = { svg, report, warnings: [] };
+  return exportFromRender(rendered, 'png', { ppi }).bytes;
 }
 
 export const nodeFiles: FilePort = {
@@ -161,7 +226,8 @@ function withExtension(filePath: string, extension: string): string {
 export function createHostHandlers(deps: HandlerDeps): HostHandlers {
   const files = deps.files ?? nodeFiles;
   const now = deps.now ?? Date.now;
-  const rasterize = deps.rasterize ?? ((svg: string, ppi: number) => rasterizeSvg(svg, { ppi }).png);
+  const buildPng = deps.buildPng ?? verifiedPng;
+  const checkExport = deps.checkExport ?? exportRefusal;
   const recent = createRecentStore(deps.recentFile, files, now);
   // Paths this session opened or saved, by id; recent entries add theirs on demand.
   const known = new Map<string, string>();
@@ -197,12 +263,13 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
   }
 
   async function writeExport(kind: 'svg' | 'png', svg: string, suggestedName: string, bytes: () => Uint8Array | string): Promise<{ name: string; bytes: number } | null> {
-    const refusal = deps.checkExport?.(svg) ?? null;
+    const refusal = checkExport(svg);
     if (refusal) throw new TallyError('gate-refused', refusal);
+    // Built (and for PNG re-checked) before the dialog: a refusal never asks where to write.
+    const data = bytes();
     const chosen = await deps.dialogs.chooseSavePath({ suggestedName, kind, folder: lastFolder });
     if (!chosen) return null;
     const target = withExtension(chosen, kind);
-    const data = bytes();
     await files.writeAtomic(target, data);
     lastFolder = path.dirname(target);
     const size = typeof data === 'string' ? new TextEncoder().encode(data).length : data.length;
@@ -253,7 +320,7 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
     exportSvg: guarded('exportSvg', async (request) => writeExport('svg', request.svg, request.suggestedName, () => request.svg)),
 
     exportPng: guarded('exportPng', async (request) =>
-      writeExport('png', request.svg, request.suggestedName, () => rasterize(request.svg, request.ppi)),
+      writeExport('png', request.svg, request.suggestedName, () => buildPng(request.svg, request.ppi)),
     ),
 
     listRecent: guarded('listRecent', async () => {
@@ -315,7 +382,13 @@ export function trustedUrlChecker(options: { rendererDir: string; devServerUrl?:
     }
     if (devOrigin && parsed.origin === devOrigin) return true;
     if (parsed.protocol !== 'file:') return false;
-    const filePath = path.resolve(decodeURIComponent(parsed.pathname));
+    let filePath: string;
+    try {
+      // fileURLToPath handles drive letters and UNC hosts on Windows and refuses encoded separators.
+      filePath = path.resolve(fileURLToPath(parsed));
+    } catch {
+      return false;
+    }
     return filePath === dir || filePath.startsWith(dir + path.sep);
   };
 }

@@ -3,9 +3,9 @@
 
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { app, BrowserWindow, dialog, ipcMain, Menu, shell, type MenuItemConstructorOptions } from 'electron';
+import { app, BrowserWindow, dialog, ipcMain, Menu, session, shell, type MenuItemConstructorOptions } from 'electron';
 import { HOST_EVENT_MENU_COMMAND } from '../../shared-core/host';
-import { createHostHandlers, exportRefusal, FILE_FILTERS, menuTemplate, registerHostHandlers, trustedUrlChecker, type DialogPort, type MenuSpec } from './ipcHandlers';
+import { createHostHandlers, exportRefusal, FILE_FILTERS, menuTemplate, registerHostHandlers, trustedUrlChecker, verifiedPng, type DialogPort, type MenuSpec } from './ipcHandlers';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const rendererDir = path.join(here, '../renderer');
@@ -71,8 +71,33 @@ function createWindow(): void {
 // The window shows only our own pages: links open in the system browser, navigation elsewhere is refused.
 app.on('web-contents-created', (_event, contents) => {
   const trusted = trustedUrlChecker({ rendererDir, devServerUrl });
-  contents.on('will-navigate', (event, url) => {
-    if (!trusted(url)) event.preventDefault();
+  const refuseUntrusted = (event: { preventDefault(): void }, url: string) => {
+    // Refused unless proven ours: nothing between here and the check can let a navigation through.
+    let allowed: boolean;
+    try {
+      allowed = trusted(url);
+    } catch {
+      allowed = false;
+    }
+    if (!allowed) event.preventDefault();
+  };
+  contents.on('will-navigate', refuseUntrusted);
+  contents.on('will-redirect', refuseUntrusted);
+  contents.on('will-attach-webview', (event) => event.preventDefault());
+  // The page's beforeunload guard (unsaved changes) only cancels in Electron; ask here, and let the
+  // window go when the designer chooses to discard.
+  contents.on('will-prevent-unload', (event) => {
+    const owner = BrowserWindow.fromWebContents(contents);
+    const options = {
+      type: 'question' as const,
+      buttons: ['Discard changes', 'Keep editing'],
+      defaultId: 1,
+      cancelId: 1,
+      message: 'The chart has unsaved changes.',
+      detail: 'Close it anyway and lose them?',
+    };
+    const choice = owner ? dialog.showMessageBoxSync(owner, options) : dialog.showMessageBoxSync(options);
+    if (choice === 0) event.preventDefault();
   });
   contents.setWindowOpenHandler(({ url }) => {
     if (url.startsWith('https:')) void shell.openExternal(url);
@@ -81,10 +106,14 @@ app.on('web-contents-created', (_event, contents) => {
 });
 
 app.whenReady().then(() => {
+  // The editor needs no camera, microphone, notifications, geolocation or anything else: refuse all.
+  session.defaultSession.setPermissionRequestHandler((_contents, _permission, callback) => callback(false));
+  session.defaultSession.setPermissionCheckHandler(() => false);
   const handlers = createHostHandlers({
     dialogs: electronDialogs(),
     recentFile: path.join(app.getPath('userData'), 'recent.json'),
     checkExport: exportRefusal,
+    buildPng: verifiedPng,
   });
   registerHostHandlers(ipcMain, handlers, trustedUrlChecker({ rendererDir, devServerUrl }));
   Menu.setApplicationMenu(buildMenu(menuTemplate({ isMac: process.platform === 'darwin', devTools: !app.isPackaged })));

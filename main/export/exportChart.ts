@@ -61,7 +61,7 @@ function checkPpi(ppi: number): number {
 }
 
 /** Turns a rendered, verified chart into file bytes; a PNG is rasterised and re-verified from its pixels. */
-export function exportFromRender(rendered: RenderResult, format: ExportFormat, opts: Pick<ExportOptions, 'ppi' | 'raster'> = {}): BuiltExport {
+export function exportFromRender(rendered: Pick<RenderResult, 'svg' | 'report' | 'warnings'>, format: ExportFormat, opts: Pick<ExportOptions, 'ppi' | 'raster'> = {}): BuiltExport {
   const { svg, report } = rendered;
   const warnings: Warning[] = [...rendered.warnings];
   for (const f of report.preflight) warnings.push({ code: f.code, message: f.message });

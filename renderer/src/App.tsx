@@ -8,6 +8,7 @@ import { ACTION_NAMES, type Action } from './editor/actions';
 import { documentStem, fromChartDocument, rowForProblemPath, toChartDocument, type EditorDocument, type RowProblem } from './editor/editorDocument';
 import { canRedo, canUndo, createHistory, historyReducer } from './editor/history';
 import { demoCharts, defaultPalette } from './demoCharts';
+import { formatFactor } from './honesty/formatHonesty';
 import { keyOfDocument, useChartRender } from './render/useChartRender';
 import { isMacPlatform, shortcutCommand, shortcutLabel } from './shortcuts';
 import { DataTable } from './components/DataTable';
@@ -126,6 +127,20 @@ export function App({ host }: { host: HostApi }): ReactElement {
     return null;
   })();
 
+  // The same block in a few words, shown beside the badge; the whole sentence is in the honesty panel.
+  const exportBlockShort: string | null = (() => {
+    if (!exportBlock) return null;
+    if (tableProblems.length > 0) return 'fix the table';
+    if (outcome?.kind === 'invalid') return 'document problem';
+    if (outcome?.kind === 'failed') return 'not drawn';
+    if (outcome?.kind === 'checked' && !outcome.honesty.pass) {
+      const worst = outcome.honesty.worst;
+      // formatFactor, as the panel shows it: never rounded to a figure on the wrong side of a limit.
+      return worst ? `lie factor ${formatFactor(worst.lieFactor, outcome.honesty.limits)}` : 'failed the honesty check';
+    }
+    return null;
+  })();
+
   const honestyState: HonestyState = (() => {
     const previous = outcome?.kind === 'checked' ? outcome.honesty : null;
     if (tableProblems.length > 0) return { kind: 'waiting', title: 'Waiting for the table', problems: tableProblems, previous };
@@ -187,6 +202,12 @@ export function App({ host }: { host: HostApi }): ReactElement {
     [conversion.document, tableProblems, host, file, doc, say],
   );
 
+  const dirty = doc !== savedDoc;
+  const dirtyRef = useRef(dirty);
+  dirtyRef.current = dirty;
+  /** True when nothing unsaved would be lost, or the designer agreed to lose it. */
+  const mayReplace = useCallback((what: string) => !dirtyRef.current || window.confirm(`The chart has unsaved changes. ${what} anyway and lose them?`), []);
+
   const loadText = useCallback(
     (name: string, text: string, documentId: string | null) => {
       let next: EditorDocument;
@@ -197,33 +218,36 @@ export function App({ host }: { host: HostApi }): ReactElement {
         say(`Could not open ${name}: ${why}`, 'error');
         return;
       }
-      dispatch({ type: 'load-document', document: next });
+      // A fresh history: undo must not bring back the previous chart under this file's id,
+      // or Save would write that chart over this file.
+      send({ type: 'reset', document: next });
       setFile({ documentId, name, demoId: null });
       setSavedDoc(next);
       say(`Opened ${name}.`);
     },
-    [dispatch, say],
+    [say],
   );
 
   const open = useCallback(
     async (documentId?: string) => {
+      if (!mayReplace('Open another chart')) return;
       const result = await host.openChart(documentId ? { documentId } : {});
       if (!result.ok) say(result.error.message, 'error');
       else if (result.value) loadText(result.value.name, result.value.text, result.value.documentId);
     },
-    [host, loadText, say],
+    [host, loadText, say, mayReplace],
   );
 
   const loadDemo = useCallback(
     (id: string) => {
       const demo = demos.find((d) => d.id === id);
-      if (!demo) return;
+      if (!demo || !mayReplace('Load the demo')) return;
       const next = fromChartDocument(demo.document);
-      dispatch({ type: 'load-document', document: next });
+      send({ type: 'reset', document: next });
       setFile({ documentId: null, name: demo.name, demoId: demo.id });
       setSavedDoc(next);
     },
-    [demos, dispatch],
+    [demos, mayReplace],
   );
 
   const commands: Record<MenuCommand, () => void> = {
@@ -253,7 +277,18 @@ export function App({ host }: { host: HostApi }): ReactElement {
     return () => window.removeEventListener('keydown', onKey, true);
   }, [caps, isMac]);
 
-  const dirty = doc !== savedDoc;
+  // Closing or reloading the window with unsaved changes asks first (Electron: main.ts shows the question).
+  useEffect(() => {
+    if (!dirty) return;
+    const onBeforeUnload = (e: BeforeUnloadEvent) => {
+      e.preventDefault();
+      // Older engines show the prompt only when returnValue is set.
+      e.returnValue = '';
+    };
+    window.addEventListener('beforeunload', onBeforeUnload);
+    return () => window.removeEventListener('beforeunload', onBeforeUnload);
+  }, [dirty]);
+
   useEffect(() => {
     document.title = `${dirty ? '• ' : ''}${file.name} — Tallyglyph`;
   }, [dirty, file.name]);
@@ -282,7 +317,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
           <span className="doc-name-text">{file.name}</span>
           {dirty && <span className="dirty-dot" title="Unsaved changes" aria-label="Unsaved changes" />}
         </div>
-        <div className="toolbar-group">
+        <div className="toolbar-group demo-group">
           <label className="demo-picker">
             <span>Demo</span>
             <select value={file.demoId ?? ''} onChange={(e) => loadDemo(e.target.value)} aria-label="Demo chart" data-testid="demo-picker">
@@ -344,9 +379,20 @@ export function App({ host }: { host: HostApi }): ReactElement {
         <span className="spacer" />
         <div className="export-group">
           {exportBlock && !render.busy && current && (
-            <span className="export-blocked" title={exportBlock} data-testid="export-blocked">
-              Export blocked
-            </span>
+            <button
+              type="button"
+              className="export-blocked"
+              title={exportBlock}
+              data-testid="export-blocked"
+              onClick={() => {
+                const panel = document.getElementById('honesty-check');
+                panel?.scrollIntoView({ block: 'start' });
+                panel?.focus();
+              }}
+            >
+              <span className="export-blocked-label">Export blocked{exportBlockShort ? ':' : ''}</span>
+              {exportBlockShort && <span className="export-blocked-reason" data-testid="export-blocked-reason">{exportBlockShort}</span>}
+            </button>
           )}
           {pngOffered && (
             <>

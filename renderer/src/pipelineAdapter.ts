@@ -66,8 +66,10 @@ export function renderDocument(doc: unknown): RenderOutcome {
       let unit: ReturnType<typeof unitOf> = null;
       try {
         // The refusal carries the measurements but not the file; write it again for the preview.
-        const scene = layoutChart(parseChart(doc));
-        svg = writeSvg(scene);
+        const spec = parseChart(doc);
+        const scene = layoutChart(spec);
+        // The same writer options as renderChart, so the preview is the file export would write.
+        svg = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
         unit = unitOf(scene);
       } catch {
         // Then there is nothing to show, only the report.

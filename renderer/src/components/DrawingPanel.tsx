@@ -140,7 +140,7 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
               The largest value
             </button>
             <button type="button" role="radio" aria-checked={enc.fillTo === 'share'} className={enc.fillTo === 'share' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-fill-to', fillTo: 'share' })}>
-              A share of 1
+              Each value is a share (0–1)
             </button>
           </div>
         </div>

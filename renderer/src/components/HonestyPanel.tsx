@@ -4,7 +4,7 @@ import type { ReactElement } from 'react';
 import type { HonestyView } from '../render/renderTypes';
 import { formatDrawn, formatFactor, formatGraphic, formatValue, inkPixels, meterPosition, readingSentence } from '../honesty/formatHonesty';
 
-const DRAWN_HEADINGS = { glyphs: 'Glyphs', mm: 'Height mm', mm2: 'Ink mm²', share: 'Filled' } as const;
+const DRAWN_HEADINGS = { glyphs: 'Glyphs', mm: 'Height (mm)', mm2: 'Ink (mm²)', share: 'Filled' } as const;
 import { Icon } from './Icon';
 
 export type HonestyState =
@@ -94,7 +94,7 @@ function Verdict({ honesty, current }: { honesty: HonestyView; current: boolean 
 
 export function HonestyPanel({ state, ppi }: HonestyPanelProps): ReactElement {
   return (
-    <aside className="panel honesty" aria-label="Honesty check">
+    <aside className="panel honesty" aria-label="Honesty check" id="honesty-check" tabIndex={-1}>
       <header className="panel-head">
         <h2>Honesty check</h2>
         <span className="panel-sub">measured on the written file</span>
@@ -182,8 +182,9 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
             <dd data-testid={testId('worst-pair', current)}>{honesty.worst ? `${honesty.worst.label} vs ${honesty.worst.reference}: ${formatFactor(honesty.worst.lieFactor, limits)}` : '—'}</dd>
           </div>
           <div>
-            <dt title="Largest drawn-per-value over smallest drawn-per-value; 1 means one scale serves every category">Spread</dt>
+            <dt>Spread</dt>
             <dd data-testid={testId('spread', current)}>{honesty.spread === null ? '—' : formatFactor(honesty.spread, { low: 1 / limits.high, high: Math.min(limits.high, 1 / limits.low) })}</dd>
+            <dd className="figure-note">Largest ÷ smallest drawn-to-value ratio; 1 = one scale for all.</dd>
           </div>
           <div>
             <dt>Allowed</dt>

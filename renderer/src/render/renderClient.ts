@@ -34,7 +34,6 @@ export function createRenderClient(): RenderClient {
   let nextId = 1;
   let running: Pending | null = null;
   let waiting: Pending | null = null;
-  let answered = false;
 
   function runInline(p: Pending): void {
     // Loaded only when needed; a macrotask, so the busy state paints before the main thread is occupied.
@@ -63,22 +62,26 @@ export function createRenderClient(): RenderClient {
     } else if (done && done.job.id === reply.id) done.onDone(reply);
   }
 
+  /**
+   * A worker that fails (blocked, a loading error, or a crash after it has answered before): stop
+   * it and run here from now on, retrying the newest document so the UI never waits on a dead run.
+   */
+  function abandonWorker(): void {
+    worker?.terminate();
+    worker = null;
+    const retry = waiting ?? running;
+    running = null;
+    waiting = null;
+    if (retry) start(retry);
+  }
+
   if (worker) {
-    worker.onmessage = (e: MessageEvent<RenderReply>) => {
-      answered = true;
-      finish(e.data);
-    };
+    worker.onmessage = (e: MessageEvent<RenderReply>) => finish(e.data);
     worker.onerror = (e) => {
-      // A worker that fails before its first answer (blocked, or a loading error): run here instead.
-      if (answered) return;
       e.preventDefault();
-      worker?.terminate();
-      worker = null;
-      const retry = waiting ?? running;
-      running = null;
-      waiting = null;
-      if (retry) start(retry);
+      abandonWorker();
     };
+    worker.onmessageerror = () => abandonWorker();
   }
 
   return {

@@ -10,7 +10,9 @@ import { layoutChart } from '../../../shared-core/layout';
 import { renderChart } from '../../../shared-core/pipeline';
 import { writeSvg } from '../../../shared-core/svg';
 import { readPngSize } from '../../../main/raster';
+import { buildExport } from '../../../main/export';
 import {
+  activeContentRefusal,
   createHostHandlers,
   documentIdFor,
   exportRefusal,
@@ -173,6 +175,89 @@ describe('exportSvg and exportPng', () => {
   });
 });
 
+describe('exportPng takes the CLI export path', () => {
+  const stack = DEMO_CHARTS.find((d) => d.name === 'stack-cafe-cups')!;
+
+  /** The CLI's verdict (main/export buildExport) as refused-or-not, with its message. */
+  function cliVerdict(ppi: number): { refused: boolean; message: string | null } {
+    try {
+      buildExport(stack.document, { format: 'png', ppi });
+      return { refused: false, message: null };
+    } catch (e) {
+      return { refused: true, message: (e as Error).message };
+    }
+  }
+
+  it('refuses the stack demo at 72 ppi as the CLI does, before any dialog, writing nothing; 150 ppi passes both', async () => {
+    const svg = renderChart(stack.document).svg;
+    // The vector file passes: the refusal at 72 ppi can only come from the pixel re-check.
+    expect(exportRefusal(svg)).toBeNull();
+    for (const ppi of [72, 150]) {
+      const cli = cliVerdict(ppi);
+      const target = path.join(dir, `stack-${ppi}.png`);
+      const { call, calls } = handlersWith({ save: [target] });
+      const r = await call('exportPng', { svg, suggestedName: 'stack.png', ppi });
+      expect(!r.ok, `refused at ${ppi} ppi`).toBe(cli.refused);
+      if (cli.refused) {
+        expect(!r.ok && r.error.code).toBe('gate-refused');
+        expect(!r.ok && r.error.message).toBe(cli.message);
+        expect(!r.ok && r.error.message).toMatch(/72 ppi raster/);
+        expect(calls.save).toHaveLength(0);
+        expect(fs.existsSync(target)).toBe(false);
+      } else {
+        expect(fs.existsSync(target)).toBe(true);
+      }
+    }
+    // The ppi where they split, so the loop above cannot pass with both verdicts equal by accident.
+    expect([cliVerdict(72).refused, cliVerdict(150).refused]).toEqual([true, false]);
+  });
+});
+
+describe('exportRefusal refuses active content', () => {
+  // Needed while the cases are collected, so rendered here rather than in beforeAll.
+  const svg = renderChart(DEMO_CHARTS[0].document).svg;
+  /** The honest demo file with `fragment` inserted just inside the root element. */
+  const withInside = (fragment: string) => svg.replace(/(<svg\b[^>]*>)/, `$1${fragment}`);
+  /** The same with an attribute added to the root element. */
+  const withRootAttr = (attr: string) => svg.replace(/<svg\b/, `<svg ${attr}`);
+
+  it('passes the honest file as written', () => {
+    expect(activeContentRefusal(svg)).toBeNull();
+    expect(exportRefusal(svg)).toBeNull();
+  });
+
+  // Each case would run code or fetch a resource in a browser (SVG 2: script element §15.5,
+  // foreignObject §23.1, event attributes §15.4, href on use/image/a §5.6, SMIL set/animate).
+  const refused: [string, string, RegExp][] = [
+    ['script', withInside('<script>alert(1)</script>'), /<script>/],
+    ['foreignObject', withInside('<foreignObject width="10" height="10"><div xmlns="http://www.w3.org/1999/xhtml">x</div></foreignObject>'), /foreignObject/],
+    ['onload on the root', withRootAttr('onload="alert(1)"'), /event attribute "onload"/],
+    ['onclick on a child', withInside('<g onclick="alert(1)"/>'), /event attribute "onclick"/],
+    ['set that writes an event attribute', withInside('<set attributeName="onmouseover" to="alert(1)"/>'), /changes "onmouseover"/],
+    ['href to a web page', withInside('<a href="https://example.com/"><text>x</text></a>'), /links to "https:\/\/example.com\/"/],
+    ['javascript: href', withInside('<a href="javascript:alert(1)"><text>x</text></a>'), /javascript:alert/],
+    ['xlink:href to an outside file', withInside('<image xlink:href="file:///etc/passwd" width="1" height="1" xmlns:xlink="http://www.w3.org/1999/xlink"/>'), /file:\/\/\/etc\/passwd/],
+    ['data URL that is not an image', withInside('<image href="data:text/html;base64,PHNjcmlwdD4=" width="1" height="1"/>'), /data:text\/html/],
+  ];
+  for (const [what, text, message] of refused) {
+    it(`refuses ${what}`, async () => {
+      expect(activeContentRefusal(text)).toMatch(message);
+      expect(exportRefusal(text)).toMatch(/^Not exported: /);
+      const target = path.join(dir, `active-${what.replace(/\W+/g, '-')}.svg`);
+      const { call, calls } = handlersWith({ save: [target] });
+      const r = await call('exportSvg', { svg: text, suggestedName: 'x.svg' });
+      expect(!r.ok && r.error.code).toBe('gate-refused');
+      expect(calls.save).toHaveLength(0);
+      expect(fs.existsSync(target)).toBe(false);
+    });
+  }
+
+  it('allows fragment links and embedded images', () => {
+    const png1px = 'data:image/png;base64,iVBORw0KGgoAAAANSUhEUgAAAAEAAAABCAYAAAAfFcSJAAAADUlEQVR4nGNgYGD4DwABBAEAwS2OUAAAAABJRU5ErkJggg==';
+    expect(activeContentRefusal(withInside(`<defs><image id="pic" href="${png1px}" width="1" height="1"/></defs><use href="#pic"/>`))).toBeNull();
+  });
+});
+
 describe('registerHostHandlers', () => {
   it('registers every allowlisted channel, and answers only the app’s own pages', async () => {
     const registered = new Map<string, (event: { senderFrame?: { url: string } }, payload: unknown) => unknown>();
@@ -188,6 +273,19 @@ describe('registerHostHandlers', () => {
       expect(r.ok, url).toBe(false);
       expect(r.error?.code).toBe('host-refused');
     }
+  });
+
+  it('reads file URLs as paths without throwing, and refuses what is not a plain path inside the folder', () => {
+    const rendererDir = path.join(dir, 'with space');
+    const trusted = trustedUrlChecker({ rendererDir });
+    // pathToFileURL percent-encodes the space (RFC 8089 file URIs); the checker must decode it.
+    expect(trusted(pathToFileURL(path.join(rendererDir, 'index.html')).href)).toBe(true);
+    expect(trusted(pathToFileURL(path.join(rendererDir, 'assets', 'a b.js')).href)).toBe(true);
+    // A broken escape made decodeURIComponent throw URIError; an encoded slash is refused by fileURLToPath.
+    expect(trusted(pathToFileURL(rendererDir).href + '/%E0%A4%A')).toBe(false);
+    expect(trusted(pathToFileURL(rendererDir).href + '/..%2F..%2Fetc%2Fpasswd')).toBe(false);
+    expect(trusted(pathToFileURL(rendererDir).href + '/../elsewhere.html')).toBe(false);
+    expect(trusted(pathToFileURL(rendererDir + '-sibling').href + '/index.html')).toBe(false);
   });
 
   it('trusts the dev server only by its exact origin', () => {

@@ -176,6 +176,12 @@ describe.skipIf(!haveChromium)(`the app in Chromium (skipped when ${CHROMIUM} is
       expect(await button.getAttribute('title')).toBe(`Export is blocked: ${reason}`);
     }
     expect(await page.getByTestId('export-blocked').isVisible()).toBe(true);
+    // The reason is on screen in words, not only in the tooltip, with the panel's figure.
+    expect(await page.getByTestId('export-blocked-reason').textContent()).toBe(`lie factor ${expected.toFixed(3)}`);
+    const blockedBox = await page.getByTestId('export-blocked').boundingBox();
+    const svgBox = await page.getByTestId('export-svg').boundingBox();
+    // Nothing in the bar is pushed off the 1440 px window.
+    expect(blockedBox && svgBox && svgBox.x + svgBox.width).toBeLessThanOrEqual(1440);
     // The shortcut is refused too, and says why.
     await page.locator('body').click({ position: { x: 700, y: 880 } });
     await page.keyboard.press('Control+e');
@@ -295,6 +301,61 @@ describe.skipIf(!haveChromium)(`the app in Chromium (skipped when ${CHROMIUM} is
     await page.getByRole('menuitem', { name: /cafe\.json/ }).click();
     await waitForVerdict('pass');
     expect(await page.getByTestId('doc-name').textContent()).toBe('cafe.json');
+  });
+
+  it('asks before an open or a demo replaces unsaved changes, starts a fresh undo history, and guards closing', async () => {
+    const cafe = DEMO_CHARTS[1].document;
+    await valueCell(1).fill('840');
+    await valueCell(1).press('Tab');
+    await expect.poll(() => page.locator('.dirty-dot').count()).toBe(1);
+
+    // Declined: no file dialog, the edited chart stays.
+    const asked: string[] = [];
+    page.once('dialog', (d) => {
+      asked.push(`${d.type()}: ${d.message()}`);
+      void d.dismiss();
+    });
+    let chooserShown = false;
+    page.once('filechooser', () => {
+      chooserShown = true;
+    });
+    await page.getByRole('button', { name: 'Open', exact: true }).click();
+    await expect.poll(() => asked.length).toBe(1);
+    expect(asked[0]).toMatch(/^confirm: The chart has unsaved changes/);
+    expect(chooserShown).toBe(false);
+    expect(await valueCell(1).inputValue()).toBe('840');
+
+    // The demo picker asks too, and a refusal leaves the picker where it was.
+    page.once('dialog', (d) => {
+      asked.push(d.type());
+      void d.dismiss();
+    });
+    await page.getByTestId('demo-picker').selectOption(DEMO_CHARTS[2].name);
+    await expect.poll(() => asked.length).toBe(2);
+    expect(await page.getByTestId('demo-picker').inputValue()).toBe(DEMO_CHARTS[0].name);
+    expect(await valueCell(1).inputValue()).toBe('840');
+
+    // Accepted: the file opens with nothing to undo, so Save cannot put the old chart under its name.
+    page.once('dialog', (d) => void d.accept());
+    const [chooser] = await Promise.all([page.waitForEvent('filechooser'), page.getByRole('button', { name: 'Open', exact: true }).click()]);
+    await chooser.setFiles({ name: 'cafe.json', mimeType: 'application/json', buffer: Buffer.from(JSON.stringify(cafe)) });
+    await expect.poll(() => page.getByTestId('doc-name').textContent()).toBe('cafe.json');
+    await waitForVerdict('pass');
+    expect(await page.getByTestId('undo').isDisabled()).toBe(true);
+    await page.keyboard.press('Control+z');
+    expect(await valueCell(1).inputValue()).toBe(String(cafe.data[0].value));
+    expect(await page.locator('.dirty-dot').count()).toBe(0);
+
+    // Unsaved again: leaving the page asks (HTML beforeunload).
+    await valueCell(1).fill('1');
+    await valueCell(1).press('Tab');
+    await expect.poll(() => page.locator('.dirty-dot').count()).toBe(1);
+    const leaving = new Promise<string>((resolve) => page.once('dialog', (d) => {
+      resolve(d.type());
+      void d.accept();
+    }));
+    await page.close({ runBeforeUnload: true });
+    expect(await leaving).toBe('beforeunload');
   });
 
   it('glyph search finds bundled glyphs by name and changes the chart glyph', async () => {
