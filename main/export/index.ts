@@ -4,7 +4,6 @@ export {
   verifyRaster,
   estimateEdgeError,
   thresholdEdgeError,
-  worstCaseEdgeError,
   hideElements,
   marksOnlySvg,
   marksOnlyPartSvg,

@@ -77,11 +77,6 @@ export function thresholdEdgeError(areaPx: number, perimeterPx: number): number 
   return Math.max(0, perimeterPx) / 8 / areaPx + estimateEdgeError(areaPx, perimeterPx);
 }
 
-export function worstCaseEdgeError(areaPx: number, perimeterPx: number): number {
-  if (!(areaPx > 0)) return Infinity;
-  return (0.5 * perimeterPx) / areaPx;
-}
-
 interface Span {
   start: number;
   end: number;

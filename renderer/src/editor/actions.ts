@@ -6,7 +6,6 @@ import type { EditorDocument, EditorRow } from './editorDocument';
 import { parseTable } from './parseTable';
 
 export type Action =
-  | { type: 'load-document'; document: EditorDocument }
   | { type: 'set-title'; title: string }
   | { type: 'set-source'; source: string }
   | { type: 'edit-label'; rowId: string; text: string }
@@ -36,7 +35,6 @@ export type ActionType = Action['type'];
 
 /** Words for the undo and redo buttons' tooltips: "Undo change of value". */
 export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze({
-  'load-document': 'opening a chart',
   'set-title': 'title change',
   'set-source': 'source change',
   'edit-label': 'label edit',
@@ -102,8 +100,6 @@ function sameColors(a: readonly string[] | undefined, b: readonly string[] | und
  */
 export function perform(doc: EditorDocument, action: Action): EditorDocument {
   switch (action.type) {
-    case 'load-document':
-      return action.document;
     case 'set-title':
       return action.title === doc.title ? doc : { ...doc, title: action.title };
     case 'set-source':
