@@ -203,17 +203,20 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const shape = book.shape(glyph, p.inkMm2);
 
   const pieces: SceneGlyph[][] = rows.map(() => []);
+  // Runs are contiguous and in order, so one cursor finds the runs touching each slot (slots + rows, not slots × rows).
+  let first = 0;
   for (let j = 0; j < slotCount; j++) {
     const { row: r, column: c } = slotCell(j, p.columns, p.gridRows, direction);
     const x = box.x + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
     const y = box.y + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
-    rows.forEach((row, i) => {
+    while (first < rows.length && starts[first] + counts[first].drawn <= j) first++;
+    for (let i = first; i < rows.length && starts[i] < j + 1; i++) {
       const from = Math.max(starts[i], j) - j;
       const to = Math.min(starts[i] + counts[i].drawn, j + 1) - j;
-      if (!(to - from > 1e-9)) return;
+      if (!(to - from > 1e-9)) continue;
       if (from <= 1e-9 && to >= 1 - 1e-9) pieces[i].push({ ...book.full(shape, x, y), glyph: glyph.name, part: 'full', fraction: 1 });
       else pieces[i].push({ region: book.band(shape, from, to, direction, x, y), glyph: glyph.name, part: 'partial', fraction: to - from });
-    });
+    }
   }
   const marks: SceneMark[] = rows.map((row, i) => ({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces[i], intended: counts[i].drawn }));
 
