@@ -18,8 +18,9 @@ import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
 const REPO = fileURLToPath(new URL('../../../', import.meta.url));
 const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
 const haveChromium = fs.existsSync(CHROMIUM);
-/** Not the dev server's port, so a running `npm run dev:web` does not collide with the tests. */
-const PORT = 5318;
+/** Not the dev server's port, so a running `npm run dev:web` does not collide with the tests;
+ * TALLYGLYPH_TEST_PORT lets two checkouts run their browser tests side by side. */
+const PORT = Number(process.env.TALLYGLYPH_TEST_PORT ?? 5318);
 const BASE = `http://127.0.0.1:${PORT}/`;
 const SHOTS = path.join(REPO, 'test-results', 'browser');
 const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
