@@ -8,3 +8,4 @@ export { preflight, PREFLIGHT_DEFAULTS } from './preflight';
 export type { Finding, PreflightCode, PreflightInput, PreflightOptions } from './preflight';
 export { verifySvg, assertVerified, summariseLieFactors } from './verifySvg';
 export type { MarkMeasurement, PairSummary, VerifyOptions, VerifyReport } from './verifySvg';
+export type { FixAction, IntegrityCheck, IntegrityFinding, Severity } from './check';

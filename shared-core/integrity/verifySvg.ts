@@ -11,6 +11,7 @@ import { readChartSvg, type ChartSvgFile, type ChartSvgMark, type ChartSvgPiece 
 import { measureText } from '../text/measureText';
 import { DISTORTION_LIMITS, gate, type GateMode, type GateRounding } from './gate';
 import { lieFactors, type LieFactorPair, type LieFactorReport } from './lieFactor';
+import type { IntegrityFinding } from './check';
 import { preflight, type Finding, type PreflightOptions } from './preflight';
 
 export interface VerifyOptions {
@@ -70,6 +71,8 @@ export interface VerifyReport {
   reason?: string;
   /** Every reason to refuse, most serious first; empty when the chart passes. */
   problems: string[];
+  /** The same reasons with a stable code and the fix for each (blocking findings first). */
+  findings: IntegrityFinding[];
   suggestions: string[];
   notes: string[];
   preflight: Finding[];
@@ -397,6 +400,10 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     spread: lf.spread,
     marks,
     problems: allProblems,
+    findings: [
+      ...verdict.problems.map((message): IntegrityFinding => ({ code: 'lie-factor', severity: 'blocking', message, fix: verdict.suggestions[0] ?? '' })),
+      ...problems.map((message): IntegrityFinding => ({ code: 'file-mismatch', severity: 'blocking', message, fix: suggestions[suggestions.length - 1] ?? '' })),
+    ],
     suggestions: pass ? [] : suggestions,
     notes,
     preflight: preflightFindings,
