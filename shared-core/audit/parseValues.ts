@@ -19,8 +19,13 @@ function readNumber(text: string, where: string): number {
 
 /** `18,27.5` (in mark order) or `mark-a=18,mark-b=27.5` (by mark id). */
 export function parseValueSpec(text: string): ValueSpec {
-  const items = text.split(',').map((s) => s.trim()).filter((s) => s !== '');
-  if (!items.length) throw new TallyError('usage', 'No values were given; write them like --values 18,27.5 or --values mark-a=18,mark-b=27.5.');
+  const items = text.split(',').map((s) => s.trim());
+  if (items.every((s) => s === '')) throw new TallyError('usage', 'No values were given; write them like --values 18,27.5 or --values mark-a=18,mark-b=27.5.');
+  // A doubled or trailing comma would otherwise shift every later value onto the wrong mark.
+  const empty = items.findIndex((s) => s === '');
+  if (empty >= 0) {
+    throw new TallyError('usage', `Item ${empty + 1} of ${items.length} in the values is empty (two commas in a row, or a comma at the start or end); give one number per mark, like --values 18,27.5.`);
+  }
   const named = items.filter((s) => s.includes('='));
   if (named.length && named.length !== items.length) {
     throw new TallyError('usage', 'Give the values either all in mark order (18,27.5) or all by mark id (mark-a=18,mark-b=27.5), not mixed.');

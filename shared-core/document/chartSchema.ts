@@ -17,7 +17,14 @@ export const DEFAULT_GAP_RATIO = 0.2;
 const MAX_ROWS = 10_000;
 const MAX_INLINE_SVG_CHARS = 1_000_000;
 const MAX_PAGE_MM = 10_000;
-const MAX_TEXT_CHARS = 10_000;
+
+/**
+ * Longest text each field may hold, in characters (Unicode code points). Text on a printed chart is
+ * read at a glance: a label longer than a line or two, or a title longer than a sentence, cannot be
+ * read beside its marks. Every character is also drawn as an outline and re-measured in the written
+ * file, so the caps keep hostile documents from costing minutes. Common practice, no source.
+ */
+export const TEXT_LIMITS = Object.freeze({ title: 200, source: 500, label: 120, unitName: 60, glyphName: 100 });
 
 export type EncodingMode = 'repeat' | 'stack' | 'scale' | 'fill';
 export type Rounding = 'ink-cut' | 'whole';
@@ -103,6 +110,8 @@ export interface ChartSpec {
   outlineText: boolean;
   /** Reuse glyph geometry with <use>; false writes every glyph out in full. */
   useReferences: boolean;
+  /** Set only when the document asks to write a chart whose values are all zero (nothing to compare). */
+  allowAllZero?: true;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -145,8 +154,31 @@ function oneOf(values: readonly string[]): string {
 const finiteNumber = () => z.number({ error: numberMessage });
 const positiveNumber = () => finiteNumber().gt(0, { error: (issue) => `must be greater than 0, got ${describeInput(issue.input)}` });
 const nonNegativeNumber = () => finiteNumber().min(0, { error: (issue) => `must be 0 or more, got ${describeInput(issue.input)}` });
-const text = () => z.string({ error: expecting('text') }).max(MAX_TEXT_CHARS, { error: `must be at most ${MAX_TEXT_CHARS} characters` });
-const nonEmptyText = () => text().min(1, { error: 'must not be empty' });
+/** Characters as a reader counts them (code points), so an emoji counts once, not as two UTF-16 units. */
+function codePoints(s: string): number {
+  let n = 0;
+  for (let i = 0; i < s.length; i++) {
+    const c = s.charCodeAt(i);
+    if (c < 0xd800 || c > 0xdbff || i + 1 >= s.length) n++;
+    else {
+      const next = s.charCodeAt(i + 1);
+      n++;
+      if (next >= 0xdc00 && next <= 0xdfff) i++;
+    }
+  }
+  return n;
+}
+/** The check that holds text to its field's cap, with a message saying the limit and why it exists. */
+const withinCap = <T extends z.ZodString>(schema: T, field: keyof typeof TEXT_LIMITS, what: string) =>
+  schema.refine((s) => codePoints(s) <= TEXT_LIMITS[field], {
+    error: (issue) =>
+      `is ${codePoints(String(issue.input)).toLocaleString('en')} characters long; ${what} may have at most ${TEXT_LIMITS[field]} characters, ` +
+      (field === 'glyphName'
+        ? 'far longer than any glyph name'
+        : 'so it can be read on the printed chart (every character is drawn as an outline and re-measured in the written file)'),
+  });
+const text = (field: keyof typeof TEXT_LIMITS, what: string) => withinCap(z.string({ error: expecting('text') }), field, what);
+const nonEmptyText = (field: keyof typeof TEXT_LIMITS, what: string) => withinCap(z.string({ error: expecting('text') }).min(1, { error: 'must not be empty' }), field, what);
 const flag = () => z.boolean({ error: expecting('true or false') });
 const choice = <T extends readonly [string, ...string[]]>(values: T) => z.enum(values, { error: expecting(oneOf(values)) });
 
@@ -169,7 +201,7 @@ function glyphMessage(issue: { input?: unknown }): string {
 const glyphSchema = () =>
   z.union(
     [
-      z.string().min(1, { error: 'must not be empty: give a glyph name such as "bike"' }),
+      withinCap(z.string().min(1, { error: 'must not be empty: give a glyph name such as "bike"' }), 'glyphName', 'a glyph name'),
       z.strictObject({
         svg: z
           .string({ error: expecting('SVG markup as text') })
@@ -182,7 +214,7 @@ const glyphSchema = () =>
 
 const rowSchema = z.strictObject(
   {
-    label: nonEmptyText(),
+    label: nonEmptyText('label', 'a label'),
     value: finiteNumber().min(0, {
       error: (issue) =>
         `is negative (${describeInput(issue.input)}): a count, area or length of ink cannot show a negative amount; ` +
@@ -199,7 +231,7 @@ const encodingSchema = z.strictObject(
   {
     mode: choice(MODES),
     unit: positiveNumber().optional(),
-    unitName: nonEmptyText().optional(),
+    unitName: nonEmptyText('unitName', 'the name of what is counted').optional(),
     glyph: glyphSchema(),
     rounding: choice(['ink-cut', 'whole'] as const).default('ink-cut'),
     arrangement: choice(['per-category', 'shared-grid'] as const).optional(),
@@ -251,8 +283,8 @@ const pageSchema = z.strictObject(
 /** The document as written (before defaults). Use parseChart for a ChartSpec. */
 export const chartDocumentSchema = z.strictObject({
   format: z.literal(CHART_FORMAT),
-  title: text().optional(),
-  source: text().optional(),
+  title: text('title', 'a title').optional(),
+  source: text('source', 'a source line').optional(),
   data: z
     .array(rowSchema, { error: expecting('a list of rows') })
     .min(1, { error: 'is empty: a chart needs at least one row of data' })
@@ -262,6 +294,8 @@ export const chartDocumentSchema = z.strictObject({
   page: pageSchema,
   outlineText: flag().default(true),
   useReferences: flag().default(false),
+  /** A chart whose values are all zero compares nothing; it is written only when the document asks. */
+  allowAllZero: flag().optional(),
 });
 
 /** A chart document as a designer or a script writes it. */
@@ -437,6 +471,7 @@ export function parseChart(json: unknown): ChartSpec {
   };
   if (d.title !== undefined) spec.title = d.title;
   if (d.source !== undefined) spec.source = d.source;
+  if (d.allowAllZero === true) spec.allowAllZero = true;
   return spec;
 }
 
@@ -459,5 +494,6 @@ export function chartToDocument(spec: ChartSpec): ChartDocument {
   };
   if (spec.title !== undefined) doc.title = spec.title;
   if (spec.source !== undefined) doc.source = spec.source;
+  if (spec.allowAllZero === true) doc.allowAllZero = true;
   return doc;
 }

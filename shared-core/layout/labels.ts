@@ -1,7 +1,7 @@
 // Text for charts: default sizes, measuring, wrapping, number formats, and SceneText with ink bounds.
 import type { Box } from '../geometry/region';
 import type { SceneText } from '../scene';
-import { measureText, textOutline, type FontWeight } from '../text';
+import { breakLines, measureText, textOutline, type FontWeight } from '../text';
 import { INK_COLORS } from './palette';
 
 /** Default text sizes in mm (common practice for print charts, no source); 1 pt = 25.4 / 72 mm (CSS Values and Units). */
@@ -42,22 +42,8 @@ export function oneLine(text: string): string {
 
 /** Greedy word wrap to a width; a word wider than the width keeps a line of its own. Explicit line breaks are kept. */
 export function wrapText(text: string, maxWidthMm: number, sizeMm: number, weight: FontWeight = 400): string[] {
-  const lines: string[] = [];
-  for (const paragraph of text.split(/\r\n|[\r\n\u2028\u2029]/)) {
-    const words = paragraph.split(/\s+/).filter(Boolean);
-    let line = '';
-    for (const word of words) {
-      const tryLine = line ? `${line} ${word}` : word;
-      if (line && textWidthMm(tryLine, sizeMm, weight) > maxWidthMm) {
-        lines.push(line);
-        line = word;
-      } else {
-        line = tryLine;
-      }
-    }
-    if (line) lines.push(line);
-  }
-  return lines;
+  // Linear in the text (shared-core/text/breakLines): re-measuring the line for every word was quadratic.
+  return breakLines(text, maxWidthMm, { sizeMm, weight });
 }
 
 /** Numbers as a reader wants them: grouped thousands, at most 2 decimals from 1 up, 3 significant digits below 1. */

@@ -4,11 +4,15 @@ import { parseChart, type ChartSpec } from '../document/index';
 import { TallyError, type Warning } from '../errors';
 import { assertVerified, verifySvg, type VerifyOptions, type VerifyReport } from '../integrity/index';
 import { layoutChart } from '../layout/index';
+import { refuseAllZero } from './refuseAllZero';
 import type { ChartSummary, Scene } from '../scene/types';
 import { readChartSvg, SUMMARY_ID } from '../svg/index';
 import { DEFAULT_XML_LIMITS, escapeXmlText, writeSvg } from '../svg/index';
 
-export type RenderOptions = VerifyOptions;
+export interface RenderOptions extends VerifyOptions {
+  /** Write a chart whose values are all zero (nothing to compare), as the document's allowAllZero does. */
+  allowAllZero?: boolean;
+}
 
 export interface RenderResult {
   /** The file to write: verified, with the measured lie factor in its summary. */
@@ -58,13 +62,15 @@ export function embedMeasured(svg: string, measured: NonNullable<ChartSummary['m
  */
 export function renderChart(doc: unknown, opts: RenderOptions = {}): RenderResult {
   const spec = parseChart(doc);
+  refuseAllZero(spec, opts.allowAllZero === true);
   const scene = layoutChart(spec);
   const written = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
   if (written.length > DEFAULT_XML_LIMITS.maxChars) {
     const mb = (written.length / 1e6).toFixed(0);
     throw new TallyError('data-invalid', `The chart would be a ${mb} MB file, more than Tallyglyph can verify (${DEFAULT_XML_LIMITS.maxChars / 1e6} MB). Use fewer categories or a larger unit, turn on "useReferences" to write each glyph once, or split the chart.`);
   }
-  const report = verifySvg(written, { rounding: spec.encoding.rounding, ...opts });
+  const { allowAllZero: _allowAllZero, ...verifyOpts } = opts;
+  const report = verifySvg(written, { rounding: spec.encoding.rounding, ...verifyOpts });
   assertVerified(report);
   const svg = embedMeasured(written, { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass });
   // embedMeasured has read the summary back from the file; record the same figures in the report.

@@ -2,6 +2,7 @@
 export { loadFont, type FontWeight } from './loadFont';
 export { measureText, type TextMetrics } from './measureText';
 export { textOutline, type TextOutline } from './textOutline';
+export { breakLines } from './breakLines';
 export { textLines, type TextLine, type TextLinesOptions, type TextLinesOutline } from './textLines';
 export { ptToMm, mmToPt } from './ptToMm';
 export type { RectMm, TextAnchor, TextPlacement, TextStyle } from './textOptions';

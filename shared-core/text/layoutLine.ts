@@ -31,14 +31,18 @@ export function layoutLine(face: FontFace, text: string): LineLayout {
     });
   }
 
-  let glyphs: Glyph[];
-  try {
-    glyphs = face.font.stringToGlyphs(text);
-  } catch {
-    // A substitution table opentype.js cannot run: fall back to one glyph per character, no ligatures.
-    glyphs = Array.from(text, (ch) => face.font.charToGlyph(ch));
-    warnings.push({ code: 'text-shaping-fallback', message: 'Ligatures could not be applied to this text; it is set letter by letter.' });
+  const glyphs: Glyph[] = [];
+  let fellBack = false;
+  for (const run of shapingRuns(text)) {
+    try {
+      glyphs.push(...face.font.stringToGlyphs(run));
+    } catch {
+      // A substitution table opentype.js cannot run: fall back to one glyph per character, no ligatures.
+      for (const ch of run) glyphs.push(face.font.charToGlyph(ch));
+      fellBack = true;
+    }
   }
+  if (fellBack) warnings.push({ code: 'text-shaping-fallback', message: 'Ligatures could not be applied to this text; it is set letter by letter.' });
 
   const placed: PlacedGlyph[] = [];
   let xUnits = 0;
@@ -50,6 +54,49 @@ export function layoutLine(face: FontFace, text: string): LineLayout {
     if (i + 1 < glyphs.length) xUnits += face.kerning(glyph.index, glyphs[i + 1].index);
   }
   return { glyphs: placed, advanceUnits: xUnits, warnings };
+}
+
+/**
+ * Most UTF-16 units shaped in one call. opentype.js copies the whole context for every position it
+ * shapes, so one call costs the square of its length (a 6,000-letter word took 7 s); runs of this
+ * size keep shaping linear in the text length.
+ */
+export const MAX_SHAPING_RUN = 64;
+
+/**
+ * A cut between text[i - 1] and text[i] changes no substitution when no ligature can span it and no
+ * mark is split from its base: Noto Sans' ligatures (ff, fi, fl, ffi, ffl) all start with "f", and its
+ * contextual composition (ccmp) joins a base with the marks after it.
+ */
+function safeCut(text: string, i: number): boolean {
+  const before = text.charCodeAt(i - 1);
+  const at = text.charCodeAt(i);
+  if (before === 0x66 || before === 0x200d) return false; // "f", zero-width joiner
+  if (at >= 0xdc00 && at <= 0xdfff) return false; // inside a surrogate pair
+  return !COMBINING.test(text[i]) && at !== 0x200d;
+}
+
+const COMBINING = /^[\p{M}\u200c\u200d]/u;
+
+/** The text split into runs of at most MAX_SHAPING_RUN units, cut only where shaping cannot tell (see safeCut). */
+export function shapingRuns(text: string): string[] {
+  if (text.length <= MAX_SHAPING_RUN) return [text];
+  const runs: string[] = [];
+  let start = 0;
+  while (text.length - start > MAX_SHAPING_RUN) {
+    let cut = start + MAX_SHAPING_RUN;
+    while (cut > start + 1 && !safeCut(text, cut)) cut--;
+    if (cut === start + 1 && !safeCut(text, cut)) {
+      // No safe cut in the whole run (a wall of "f"s or of combining marks): cut anyway, off a surrogate pair.
+      cut = start + MAX_SHAPING_RUN;
+      const at = text.charCodeAt(cut);
+      if (at >= 0xdc00 && at <= 0xdfff) cut--;
+    }
+    runs.push(text.slice(start, cut));
+    start = cut;
+  }
+  runs.push(text.slice(start));
+  return runs;
 }
 
 function missingCharacters(face: FontFace, text: string): string[] {

@@ -15,6 +15,8 @@ Options:
   -o, --output <file>  where to write; .svg or .png
       --ppi <n>        PNG resolution in pixels per inch (default 300)
       --json           print the full verification report as JSON on stdout
+      --allow-all-zero write a chart whose values are all zero (it compares nothing,
+                       so it is refused without this flag or "allowAllZero": true)
 `;
 
 /** A number as the report prints it: four decimals, enough that a failing factor never reads as passing. */
@@ -58,7 +60,7 @@ async function run(argv: string[], io: CliIO): Promise<number> {
   try {
     parsed = parseArgs({
       args: argv,
-      options: { output: { type: 'string', short: 'o' }, ppi: { type: 'string' }, json: { type: 'boolean', default: false } },
+      options: { output: { type: 'string', short: 'o' }, ppi: { type: 'string' }, json: { type: 'boolean', default: false }, 'allow-all-zero': { type: 'boolean', default: false } },
       allowPositionals: true,
       strict: true,
     });
@@ -89,7 +91,7 @@ async function run(argv: string[], io: CliIO): Promise<number> {
     return EXIT.usage;
   }
   try {
-    const result = await exportChart(text, output, ppi !== undefined ? { ppi } : {});
+    const result = await exportChart(text, output, { ...(ppi !== undefined ? { ppi } : {}), ...(values['allow-all-zero'] ? { allowAllZero: true } : {}) });
     if (json) {
       io.stdout(JSON.stringify({ ok: true, path: output, format: result.format, report: result.report, raster: result.raster ?? null, png: result.png ?? null, warnings: result.warnings }, null, 2) + '\n');
     } else {
