@@ -7,6 +7,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { createHash } from 'node:crypto';
 import { z } from 'zod';
+import { describeKinds, findOutsideReferences } from '../../shared-core/audit';
 import { parseChart } from '../../shared-core/document';
 import { TallyError, isTallyError } from '../../shared-core/errors';
 import { verifySvg } from '../../shared-core/integrity';
@@ -114,6 +115,9 @@ export function activeContentRefusal(svg: string): string | null {
       }
     }
   }
+  // What the walk above does not see: CSS url() and @import, linked style sheets, outside DTDs, xml:base.
+  const outside = findOutsideReferences(svg);
+  if (outside.length) return `The SVG refers outside itself: ${describeKinds(outside)}.`;
   return null;
 }
 

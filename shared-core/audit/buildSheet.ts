@@ -10,6 +10,8 @@ import { textOutline } from '../text';
 import type { AuditReport } from './auditReport';
 import { formatFactor, formatMeasure, formatRatio } from './formatNumbers';
 import { importSvg } from './importSvg';
+import { removalNote, stripOutsideReferences } from './outsideReferences';
+import { TEXT_LIMITS } from '../document/chartSchema';
 import { sanitizedCopy } from './sanitizedCopy';
 import type { ReadingName } from './types';
 
@@ -71,6 +73,10 @@ function dataLine(report: AuditReport): string {
 }
 
 export function buildSheet(input: SheetInput): Sheet {
+  const titleLength = input.title === undefined ? 0 : [...input.title].length;
+  if (titleLength > TEXT_LIMITS.title) {
+    throw new TallyError('usage', `The sheet title is ${titleLength.toLocaleString('en')} characters long; a title may have at most ${TEXT_LIMITS.title} characters, so it can be read on the sheet.`);
+  }
   const box = drawingBox(input.supplied);
   const scale = PANEL_MM / Math.max(box.width, box.height);
   const panelW = box.width * scale, panelH = box.height * scale;
@@ -111,7 +117,7 @@ export function buildSheet(input: SheetInput): Sheet {
     captions.push(caption(oneLine(report, input.reading), x0, cy + 12, 3.2, PANEL_MM));
     captions.push(caption(dataLine(report), x0, cy + 17.5, 3.2, PANEL_MM));
   });
-  const svg =
+  const written =
     '<?xml version="1.0" encoding="UTF-8"?>\n' +
     `<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" version="1.1" width="${widthMm}mm" height="${heightMm}mm" viewBox="0 0 ${widthMm} ${heightMm}">\n` +
     `<title>${escapeXmlText(input.title ?? 'Supplied and corrected graphic')}</title>\n` +
@@ -119,5 +125,9 @@ export function buildSheet(input: SheetInput): Sheet {
     parts.join('\n') +
     `\n<g id="sheet-captions">${captions.join('')}</g>` +
     '\n</svg>\n';
-  return { svg, widthMm, heightMm, prefixes, warnings };
+  // The copies are already cleaned; this pass proves it on the whole sheet and catches what they missed.
+  const stripped = stripOutsideReferences(written);
+  const note = removalNote(stripped.removed, "The sheet's copy");
+  if (note) warnings.push(note);
+  return { svg: stripped.svg, widthMm, heightMm, prefixes, warnings };
 }

@@ -9,6 +9,7 @@ import { auditSvgDetailed, type AuditReport, type AuditSvgOptions } from './audi
 import { elementSpans } from './elementSpans';
 import { MARK_ATTRIBUTE, type SvgMark } from './findSvgMarks';
 import { formatFactor } from './formatNumbers';
+import { removalNote, stripOutsideReferences } from './outsideReferences';
 import type { ReadingName } from './types';
 
 export type Anchor = 'bottom-centre' | 'centre' | 'top-centre' | 'bottom-left' | 'bottom-right' | 'top-left' | 'top-right' | 'centre-left' | 'centre-right';
@@ -171,7 +172,9 @@ export function correctSvg(text: string, opts: CorrectOptions = {}): CorrectionR
     at = e.span.end;
   }
   parts.push(source.slice(at));
-  const svg = parts.join('');
+  // The corrected file goes to a client: nothing in it may fetch or run anything (checked again inside).
+  const stripped = stripOutsideReferences(parts.join(''));
+  const svg = stripped.svg;
 
   const named: Record<string, number> = {};
   before.marks.forEach((m) => (named[m.id] = m.value));
@@ -180,7 +183,10 @@ export function correctSvg(text: string, opts: CorrectOptions = {}): CorrectionR
   if (after.marks.length !== before.marks.length || check.pass !== true) {
     throw new TallyError('gate-refused', `The corrected file did not pass its own check under the ${reading} reading (worst lie factor ${formatFactor(check.lieFactor.worst)}); it was not written.`);
   }
-  return { svg, reading, anchor, keptMark: before.marks[keep].id, corrections: plans.map((p) => p.correction), before, after, warnings: layoutWarnings(before, after) };
+  const warnings = layoutWarnings(before, after);
+  const note = removalNote(stripped.removed, 'The corrected file');
+  if (note) warnings.push(note);
+  return { svg, reading, anchor, keptMark: before.marks[keep].id, corrections: plans.map((p) => p.correction), before, after, warnings };
 }
 
 function escapeAttr(s: string): string {

@@ -21,3 +21,4 @@ export { verdictSentence } from './verdictSentence';
 export { READING_NAMES, type ReadingName, type MeasuredMark, type MarkPart, type SolidCue, type SourceUnit, type SetAside } from './types';
 export { buildSheet, type Sheet, type SheetInput } from './buildSheet';
 export { sanitizedCopy, type SanitizedCopy } from './sanitizedCopy';
+export { cleanCss, describeKinds, findOutsideReferences, removalNote, stripOutsideReferences, type OutsideKind, type OutsideReference, type StrippedSvg } from './outsideReferences';

@@ -4,6 +4,7 @@
 import { escapeXmlAttr, escapeXmlText } from '../svg/writeSvg';
 import type { XmlElement } from '../svg/parseXml';
 import type { Warning } from '../errors';
+import { cleanCss } from './outsideReferences';
 
 const DROPPED = new Set(['script', 'foreignObject', 'style', 'iframe', 'handler', 'listener']);
 const ROOT_ONLY = new Set(['width', 'height', 'viewBox', 'x', 'y', 'version', 'preserveAspectRatio', 'baseProfile', 'zoomAndPan', 'contentScriptType', 'contentStyleType', 'id']);
@@ -45,8 +46,21 @@ export function sanitizedCopy(root: XmlElement, idPrefix: string): SanitizedCopy
         out += ` href="${escapeXmlAttr(value)}"`;
         continue;
       }
+      if (k === 'src' && !SAFE_DATA_URL.test(v.trim())) {
+        note('outside references');
+        continue;
+      }
+      if (/url\(|@import|image(?:-set)?\(|\\/i.test(v)) {
+        // CSS in a style or presentation attribute may point outside the file too.
+        const cleaned = cleanCss(v);
+        if (cleaned.urls + cleaned.imports > 0) {
+          note('CSS references to outside files');
+          if (k !== 'style' || cleaned.css.trim() === '') continue;
+          value = cleaned.css;
+        }
+      }
       if (k === 'id') value = idPrefix + v;
-      else value = rewrite(v);
+      else value = rewrite(value);
       out += ` ${k}="${escapeXmlAttr(value)}"`;
     }
     return out;

@@ -1,5 +1,6 @@
 // The whole export chain in one place: parse the document, lay it out, write the SVG, re-measure the written
 // text, gate it, and only then record the measured lie factor in the file's summary.
+import { describeKinds, findOutsideReferences } from '../audit/index';
 import { parseChart, type ChartSpec } from '../document/index';
 import { TallyError, type Warning } from '../errors';
 import { assertVerified, verifySvg, type VerifyOptions, type VerifyReport } from '../integrity/index';
@@ -68,6 +69,11 @@ export function renderChart(doc: unknown, opts: RenderOptions = {}): RenderResul
   if (written.length > DEFAULT_XML_LIMITS.maxChars) {
     const mb = (written.length / 1e6).toFixed(0);
     throw new TallyError('data-invalid', `The chart would be a ${mb} MB file, more than Tallyglyph can verify (${DEFAULT_XML_LIMITS.maxChars / 1e6} MB). Use fewer categories or a larger unit, turn on "useReferences" to write each glyph once, or split the chart.`);
+  }
+  // The writer emits no outside reference; this proves it on the written text, whatever the glyphs held.
+  const outside = findOutsideReferences(written);
+  if (outside.length) {
+    throw new TallyError('svg-malformed', `The written chart would refer outside itself (${describeKinds(outside)}); nothing was exported.`);
   }
   const { allowAllZero: _allowAllZero, ...verifyOpts } = opts;
   const report = verifySvg(written, { rounding: spec.encoding.rounding, ...verifyOpts });

@@ -18,6 +18,7 @@ import {
 } from '../../../shared-core/host';
 import { TallyError } from '../../../shared-core/errors';
 import { withPhysChunk } from '../../../shared-core/png';
+import { describeKinds, findOutsideReferences } from '../../../shared-core/audit';
 
 const RECENT_KEY = 'tallyglyph.recent/1';
 /** Documents larger than this are listed as recent but not kept, so localStorage does not fill up. */
@@ -32,6 +33,12 @@ interface StoredRecent {
   name: string;
   whenMs: number;
   text?: string;
+}
+
+/** The chart writer emits no outside reference; an export holding one did not come from it. */
+function refuseOutsideReferences(svg: string): void {
+  const outside = findOutsideReferences(svg);
+  if (outside.length) throw new TallyError('gate-refused', `Not exported: the SVG refers outside itself (${describeKinds(outside)}).`);
 }
 
 export interface BrowserHostOptions {
@@ -223,12 +230,14 @@ export function createBrowserHost(options: BrowserHostOptions = {}): HostApi {
     exportSvg: (request) =>
       attempt(async (): Promise<ExportedFile | null> => {
         const { svg, suggestedName } = parseHostRequest('exportSvg', request);
+        refuseOutsideReferences(svg);
         return { name: suggestedName, bytes: download(svg, suggestedName, 'image/svg+xml') };
       }),
 
     exportPng: (request) =>
       attempt(async (): Promise<ExportedFile | null> => {
         const { svg, suggestedName, ppi } = parseHostRequest('exportPng', request);
+        refuseOutsideReferences(svg);
         const { png } = await rasterizeInBrowser(svg, ppi);
         return { name: suggestedName, bytes: download(png, suggestedName, 'image/png') };
       }),
