@@ -14,7 +14,7 @@ export type OutsideKind =
   | 'foreign-object' // <foreignObject> (HTML inside SVG: frames, forms, links)
   | 'animation' // <set>/<animate> that writes an href, a style or an event handler
   | 'style-sheet-link' // <?xml-stylesheet href=...?>
-  | 'doctype'; // a DOCTYPE naming an outside DTD
+  | 'doctype'; // a DOCTYPE naming a DTD other than the W3C's SVG DTDs
 
 export interface OutsideReference {
   kind: OutsideKind;
@@ -95,6 +95,18 @@ function escapeAttr(s: string): string {
 
 function escapeText(s: string): string {
   return s.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;');
+}
+
+/**
+ * A DOCTYPE whose system identifier a validating reader might fetch. The W3C's own SVG DTD identifiers
+ * (SVG 1.0, 1.1, Tiny, Basic) are resolved from local catalogs, never fetched, and Tallyglyph's charts
+ * carry the SVG 1.1 one so that validators can check them.
+ */
+function outsideDtd(doctype: string): boolean {
+  const external = /\b(?:SYSTEM\s+("[^"]*"|'[^']*')|PUBLIC\s+(?:"[^"]*"|'[^']*')\s+("[^"]*"|'[^']*'))/.exec(doctype);
+  if (!external) return false;
+  const system = (external[1] ?? external[2]).slice(1, -1).trim();
+  return !/^http:\/\/www\.w3\.org\/(?:TR\/2001\/REC-SVG-20010904\/DTD\/svg10\.dtd|Graphics\/SVG\/1\.1\/DTD\/svg11(?:-tiny|-basic)?\.dtd)$/.test(system);
 }
 
 interface Edit {
@@ -205,7 +217,7 @@ function scan(text: string): { found: OutsideReference[]; edits: Edit[] } {
     edits.push({ start: text.lastIndexOf('<?', parser.position - 1), end: parser.position, text: '' });
   });
   parser.on('doctype', (doctype) => {
-    if (!/\b(SYSTEM|PUBLIC)\b/.test(doctype)) return;
+    if (!outsideDtd(doctype)) return;
     found.push({ kind: 'doctype', element: 'document' });
     edits.push({ start: text.lastIndexOf('<!DOCTYPE', parser.position - 1), end: parser.position, text: '' });
   });
@@ -255,7 +267,7 @@ const KIND_WORDS: Record<OutsideKind, [string, string]> = {
   'foreign-object': ['<foreignObject>', '<foreignObject>s'],
   animation: ['animation that sets a link, style or handler', 'animations that set links, styles or handlers'],
   'style-sheet-link': ['linked style sheet', 'linked style sheets'],
-  doctype: ['DOCTYPE naming an outside DTD', 'DOCTYPEs naming an outside DTD'],
+  doctype: ['DOCTYPE naming an outside DTD', 'DOCTYPEs naming outside DTDs'],
 };
 
 /** "2 links to outside files or addresses, 1 CSS @import": counts by kind, never the addresses themselves. */

@@ -24,7 +24,7 @@ const MAX_PAGE_MM = 10_000;
  * read beside its marks. Every character is also drawn as an outline and re-measured in the written
  * file, so the caps keep hostile documents from costing minutes. Common practice, no source.
  */
-export const TEXT_LIMITS = Object.freeze({ title: 200, source: 500, label: 120, unitName: 60, glyphName: 100 });
+export const TEXT_LIMITS = Object.freeze({ title: 200, source: 300, label: 120, unitName: 60, glyphName: 100 });
 
 export type EncodingMode = 'repeat' | 'stack' | 'scale' | 'fill';
 export type Rounding = 'ink-cut' | 'whole';

@@ -3,6 +3,7 @@
 import { Clipper, ClipType, FillRule, type PathD, type PathsD } from 'clipper2-ts';
 import { TallyError } from '../errors';
 import type { Matrix } from './matrix';
+import { guardSweepWork } from './sweepWork';
 
 export type { PathD, PathsD };
 export type Region = PathsD;
@@ -74,6 +75,7 @@ export function unionPaths(paths: PathsD, rule: 'nonzero' | 'evenodd'): Region {
   const usable = paths.filter((p) => p.length >= 3);
   if (!usable.length) return [];
   guardCrossings(usable);
+  guardSweepWork(usable);
   const prec = clipperPrecision(extentOf(usable));
   return Clipper.booleanOpD(ClipType.Union, usable, null, rule === 'evenodd' ? FillRule.EvenOdd : FillRule.NonZero, prec);
 }

@@ -3,7 +3,7 @@
 import type { ChartSpec, GlyphRef } from '../document';
 import { TallyError, isTallyError, type Warning } from '../errors';
 import type { Box, Region } from '../geometry/region';
-import { measureGlyph } from '../glyph';
+import { checkGlyphDetail, measureGlyph } from '../glyph';
 
 /**
  * Flattening tolerance for glyphs placed in charts, as a share of the glyph's extent. Written charts
@@ -75,6 +75,7 @@ export function resolveGlyphs(spec: ChartSpec): ResolvedGlyphs {
     if (!(ink.areaUnits2 > 0) || !Number.isFinite(ink.areaUnits2)) {
       throw new TallyError('glyph-empty', `${where}: the glyph${inline ? '' : ` "${name}"`} paints no ink (zero area), so it cannot stand for a quantity. Give it a filled shape.`);
     }
+    checkGlyphDetail(ink.region, where);
     if (inline) inlineCount += 1;
     for (const w of ink.warnings) warnings.push({ code: w.code, message: `${where} (${name}): ${w.message}` });
     const glyph: ResolvedGlyph = { name, region: ink.region, areaUnits2: ink.areaUnits2, bbox: ink.bbox };

@@ -2,6 +2,7 @@
 // text, gate it, and only then record the measured lie factor in the file's summary.
 import { describeKinds, findOutsideReferences } from '../audit/index';
 import { parseChart, type ChartSpec } from '../document/index';
+import { checkChartDetail } from '../glyph/index';
 import { TallyError, type Warning } from '../errors';
 import { assertVerified, verifySvg, type VerifyOptions, type VerifyReport } from '../integrity/index';
 import { layoutChart } from '../layout/index';
@@ -65,6 +66,7 @@ export function renderChart(doc: unknown, opts: RenderOptions = {}): RenderResul
   const spec = parseChart(doc);
   refuseAllZero(spec, opts.allowAllZero === true);
   const scene = layoutChart(spec);
+  checkChartDetail([...scene.marks.flatMap((m) => m.glyphs), ...scene.legendKeys]);
   const written = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
   if (written.length > DEFAULT_XML_LIMITS.maxChars) {
     const mb = (written.length / 1e6).toFixed(0);
