@@ -274,7 +274,9 @@ const KIND_WORDS: Record<OutsideKind, [string, string]> = {
 export function describeKinds(refs: readonly OutsideReference[]): string {
   const counts = new Map<OutsideKind, number>();
   for (const r of refs) counts.set(r.kind, (counts.get(r.kind) ?? 0) + 1);
-  return [...counts].map(([kind, n]) => `${n} ${KIND_WORDS[kind][n === 1 ? 0 : 1]}`).join(', ');
+  // A fixed order (links first), whatever order the file had them in.
+  const kinds = (Object.keys(KIND_WORDS) as OutsideKind[]).filter((k) => counts.has(k));
+  return kinds.map((kind) => `${counts.get(kind)} ${KIND_WORDS[kind][counts.get(kind) === 1 ? 0 : 1]}`).join(', ');
 }
 
 /** The note that travels with a cleaned output file, or null when nothing was removed. */
