@@ -4,6 +4,7 @@
 // true bevel (SVG) and not the squared miter a polygon offsetter would give.
 import type { PathD, PathsD } from 'clipper2-ts';
 import { ringArea, unionPaths, type Region } from '../geometry/region';
+import { guardSweepWork } from '../geometry/sweepWork';
 import type { Polyline } from './flattenPath';
 
 export type LineJoin = 'miter' | 'round' | 'bevel';
@@ -24,6 +25,9 @@ const SMOOTH_MITER_MAX_TURN = 0.2;
 export function strokeRegion(lines: Polyline[], style: StrokeStyle, toleranceUnits: number): Region {
   const h = style.width / 2;
   if (!(h > 0)) return [];
+  // The stroke's outline runs beside its centre line at every height, so the union can cost no less
+  // than the centre line's own sweep: refuse a comb of strokes before building a piece per segment.
+  guardSweepWork(lines.map((l) => l.points));
   const pieces: PathD[] = [];
   const tol = Math.min(toleranceUnits, h / 4);
   const arcStep = 2 * Math.acos(Math.max(-1, 1 - tol / h));
