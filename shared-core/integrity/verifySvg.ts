@@ -13,6 +13,7 @@ import { DISTORTION_LIMITS, gate, type GateMode, type GateRounding } from './gat
 import { lieFactors, type LieFactorPair, type LieFactorReport } from './lieFactor';
 import type { IntegrityFinding } from './check';
 import { preflight, type Finding, type PreflightOptions } from './preflight';
+import { createShapeInkCache } from './shapeInk';
 
 export interface VerifyOptions {
   /** Distortion limits; default Tufte's 0.95 and 1.05. */
@@ -201,8 +202,22 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   const budget = newBudget(2_000_000, 20_000_000);
   const tolUnits = TOLERANCE_MM / s;
 
+  // Each distinct shape is measured once; its copies (every `use` of a glyph) are exact translates of it.
+  const shapeInk = createShapeInkCache(budget);
   const inkOf = (shapes: PaintedShape[], tolerance = tolUnits): Ink => {
     if (shapes.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
+    if (shapes.length === 1) {
+      const one = shapeInk(shapes[0], tolerance);
+      const b = one.boxUnits;
+      return {
+        get region() {
+          return one.region();
+        },
+        areaMm2: one.areaUnits2 * s * s,
+        perimeterMm: one.perimeterUnits * s,
+        boxMm: b ? { x: b.x * s, y: b.y * s, width: b.width * s, height: b.height * s } : null,
+      };
+    }
     const region = inkOfShapes(shapes, tolerance, budget);
     return inkOfRegion(region);
   };
@@ -257,10 +272,9 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   const markInks: MarkInk[] = file.marks.map((mark) => {
     const pieces = mark.pieces.map((piece) => ({ piece, ink: inkOf(byPiece.get(piece) ?? []) }));
     const loose = looseByMark.get(mark) ?? [];
-    const regions = pieces.map((p) => p.ink.region).filter((r) => r.length);
-    if (loose.length) regions.push(inkOf(loose).region);
-    const ink = regions.length === 0 ? inkOf([]) : regions.length === 1 ? inkOfRegion(regions[0]) : inkOfRegion(disjoint(regions) ? regions.flat() : unionRegions(regions));
-    return { mark, ink, pieces, other: loose.length };
+    const inks = pieces.map((p) => p.ink);
+    if (loose.length) inks.push(inkOf(loose));
+    return { mark, ink: unionInks(inks, inkOfRegion), pieces, other: loose.length };
   });
   const legendInks = file.legendKeys.map((_, i) => inkOf(byLegend.get(i) ?? []));
   checkInkShows(file, collected.shapes, owners, markInks, reading, problems, roughInkOf);
@@ -417,10 +431,6 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   return report;
 }
 
-/**
- * True when no two regions' bounding boxes meet, so their union is just all their rings together and the
- * (costly) polygon union can be skipped. Boxes that merely touch count as meeting.
- */
 /** A CSS colour as lower-case #rrggbb where it is a plain colour we can read; otherwise as written. */
 export function normaliseColour(paint: string | undefined): string {
   const p = (paint ?? '#000000').trim().toLowerCase();
@@ -503,16 +513,60 @@ function boxesMeet(a: { x: number; y: number; width: number; height: number }, b
   return a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
 }
 
-function disjoint(regions: Region[]): boolean {
-  const boxes = regions.map((r) => boxOf(r)).sort((a, b) => a.x - b.x);
-  for (let i = 0; i < boxes.length; i++) {
-    const a = boxes[i];
-    for (let j = i + 1; j < boxes.length && boxes[j].x <= a.x + a.width; j++) {
-      const b = boxes[j];
-      if (b.y <= a.y + a.height && a.y <= b.y + b.height) return false;
+/**
+ * The union of several inks, running the (costly) polygon union only within groups whose bounding boxes
+ * meet (boxes that merely touch count as meeting): inks in different groups cannot overlap, so the union
+ * is their rings side by side, its area the sum of theirs.
+ */
+function unionInks(inks: Ink[], inkOfRegion: (region: Region) => Ink): Ink {
+  const drawn = inks.filter((ink) => ink.boxMm !== null);
+  if (drawn.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
+  if (drawn.length === 1) return drawn[0];
+  // Union-find over box overlaps, found by a sweep along x.
+  const order = drawn.map((_, i) => i).sort((a, b) => (drawn[a].boxMm as Box).x - (drawn[b].boxMm as Box).x);
+  const parent = drawn.map((_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+    return i;
+  };
+  for (let oi = 0; oi < order.length; oi++) {
+    const a = drawn[order[oi]].boxMm as Box;
+    for (let oj = oi + 1; oj < order.length; oj++) {
+      const b = drawn[order[oj]].boxMm as Box;
+      if (b.x > a.x + a.width) break;
+      if (b.y <= a.y + a.height && a.y <= b.y + b.height) parent[find(order[oj])] = find(order[oi]);
     }
   }
-  return true;
+  const groups = new Map<number, Ink[]>();
+  drawn.forEach((ink, i) => {
+    const root = find(i);
+    const list = groups.get(root);
+    if (list) list.push(ink);
+    else groups.set(root, [ink]);
+  });
+  const parts = [...groups.values()].map((group) => (group.length === 1 ? group[0] : inkOfRegion(unionRegions(group.map((g) => g.region)))));
+  let areaMm2 = 0;
+  let perimeterMm = 0;
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const p of parts) {
+    areaMm2 += p.areaMm2;
+    perimeterMm += p.perimeterMm;
+    const b = p.boxMm;
+    if (!b) continue;
+    x0 = Math.min(x0, b.x);
+    y0 = Math.min(y0, b.y);
+    x1 = Math.max(x1, b.x + b.width);
+    y1 = Math.max(y1, b.y + b.height);
+  }
+  let region: Region | null = null;
+  return {
+    get region() {
+      return (region ??= parts.flatMap((p) => p.region));
+    },
+    areaMm2,
+    perimeterMm,
+    boxMm: x0 <= x1 ? { x: x0, y: y0, width: x1 - x0, height: y1 - y0 } : null,
+  };
 }
 
 /** The lie factors as a report gives them: the worst, its pair, and every pair; the raster check uses it too. */
