@@ -92,7 +92,7 @@ const STAGES = ['parse', 'layout', 'write', 'verify', 'embed'] as const;
 type Stage = (typeof STAGES)[number];
 
 /** parse → layout → write → verify → embed, each stage timed on its own. */
-function renderStages(doc: unknown): Record<Stage, number> & { chars: number; pass: boolean } {
+function renderStages(doc: unknown): Record<Stage, number> & { chars: number; pass: boolean; reason: string } {
   const t0 = performance.now();
   const spec = parseChart(doc);
   const t1 = performance.now();
@@ -104,7 +104,7 @@ function renderStages(doc: unknown): Record<Stage, number> & { chars: number; pa
   const t4 = performance.now();
   embedMeasured(svg, { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass });
   const t5 = performance.now();
-  return { parse: t1 - t0, layout: t2 - t1, write: t3 - t2, verify: t4 - t3, embed: t5 - t4, chars: svg.length, pass: report.pass };
+  return { parse: t1 - t0, layout: t2 - t1, write: t3 - t2, verify: t4 - t3, embed: t5 - t4, chars: svg.length, pass: report.pass, reason: report.reason ?? '' };
 }
 
 /** A Vega 6 spec with `count` symbol marks in a grid, the nearest thing a charting grammar has to a unit chart. */
@@ -223,17 +223,19 @@ export async function runBench(opts: BenchOptions = {}): Promise<BenchResult> {
     const perStage: Record<Stage, number[]> = { parse: [], layout: [], write: [], verify: [], embed: [] };
     let chars = 0;
     let pass = true;
+    let reason = '';
     const whole = await timed(stageRuns, () => {
       const st = renderStages(doc);
       for (const k of STAGES) perStage[k].push(st[k]);
       chars = st.chars;
       pass &&= st.pass;
+      reason ||= st.reason;
     });
     // The warm-up run also pushed its stages: drop it.
     for (const k of STAGES) perStage[k] = perStage[k].slice(1);
     const theirs = await timed(stageRuns, () => vegaToSvg(n));
     totals.set(n, whole.medianMs);
-    add({ case: `repeat ${n} glyphs`, figure: 'ours: parse+layout+SVG+verify+embed', value: whole.medianMs, unit: 'ms', min: whole.minMs, max: whole.maxMs, note: `${(chars / 1e6).toFixed(2)} MB SVG, ${pass ? 'verified' : 'REFUSED'}` });
+    add({ case: `repeat ${n} glyphs`, figure: 'ours: parse+layout+SVG+verify+embed', value: whole.medianMs, unit: 'ms', min: whole.minMs, max: whole.maxMs, note: `${(chars / 1e6).toFixed(2)} MB SVG, ${pass ? 'verified' : `refused: ${reason.slice(0, 100)}`}` });
     for (const k of STAGES) {
       add({ case: `repeat ${n} glyphs`, figure: `  stage ${k}`, value: median(perStage[k]), unit: 'ms', min: Math.min(...perStage[k]), max: Math.max(...perStage[k]) });
     }

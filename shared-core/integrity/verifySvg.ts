@@ -575,21 +575,37 @@ function unionInks(inks: Ink[], inkOfRegion: (region: Region) => Ink): Ink {
   const drawn = inks.filter((ink) => ink.boxMm !== null);
   if (drawn.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
   if (drawn.length === 1) return drawn[0];
-  // Union-find over box overlaps, found by a sweep along x.
-  const order = drawn.map((_, i) => i).sort((a, b) => (drawn[a].boxMm as Box).x - (drawn[b].boxMm as Box).x);
+  // Union-find over box overlaps. Boxes are binned on a grid of cells as large as the largest box, so each
+  // box meets only boxes filed in the cells it covers (at most four): linear in the number of pieces.
+  const boxes = drawn.map((ink) => ink.boxMm as Box);
+  const cell = Math.max(...boxes.map((b) => Math.max(b.width, b.height))) || 1;
   const parent = drawn.map((_, i) => i);
   const find = (i: number): number => {
     while (parent[i] !== i) i = parent[i] = parent[parent[i]];
     return i;
   };
-  for (let oi = 0; oi < order.length; oi++) {
-    const a = drawn[order[oi]].boxMm as Box;
-    for (let oj = oi + 1; oj < order.length; oj++) {
-      const b = drawn[order[oj]].boxMm as Box;
-      if (b.x > a.x + a.width) break;
-      if (b.y <= a.y + a.height && a.y <= b.y + b.height) parent[find(order[oj])] = find(order[oi]);
+  const bins = new Map<string, number[]>();
+  boxes.forEach((a, i) => {
+    const x0 = Math.floor(a.x / cell);
+    const x1 = Math.floor((a.x + a.width) / cell);
+    const y0 = Math.floor(a.y / cell);
+    const y1 = Math.floor((a.y + a.height) / cell);
+    for (let cx = x0; cx <= x1; cx++) {
+      for (let cy = y0; cy <= y1; cy++) {
+        const key = `${cx},${cy}`;
+        const bin = bins.get(key);
+        if (!bin) {
+          bins.set(key, [i]);
+          continue;
+        }
+        for (const j of bin) {
+          const b = boxes[j];
+          if (b.x <= a.x + a.width && a.x <= b.x + b.width && b.y <= a.y + a.height && a.y <= b.y + b.height) parent[find(j)] = find(i);
+        }
+        bin.push(i);
+      }
     }
-  }
+  });
   const groups = new Map<number, Ink[]>();
   drawn.forEach((ink, i) => {
     const root = find(i);

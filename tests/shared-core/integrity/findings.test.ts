@@ -142,3 +142,32 @@ describe('smallest ink drawn (preflight names it)', () => {
     expect(report.smallestGlyph?.label).toBe('A');
   });
 });
+
+describe('ink of a mark: pieces are unioned only where their boxes meet', () => {
+  it('counts overlapping pieces once and apart pieces in full (closed-form rectangle areas)', () => {
+    const report = verifySvg(
+      chartSvg({
+        reading: 'area',
+        mode: 'scale',
+        unit: 1,
+        marks: [
+          {
+            id: 'mark-1',
+            label: 'A',
+            value: 1,
+            // Two 8 x 8 squares overlapping by 4 x 8 (union 12 x 8 = 96 mm²), a third far away (64 mm²).
+            pieces: [
+              { ring: rect(20, 20, 8, 8), part: 'full' },
+              { ring: rect(24, 20, 8, 8), part: 'full' },
+              { ring: rect(120, 90, 8, 8), part: 'full' },
+            ],
+          },
+        ],
+      }),
+    );
+    expect(report.marks[0].inkMm2).toBeCloseTo(96 + 64, 9);
+    // Outline: 2 x (12 + 8) + 4 x 8 = 72 mm.
+    expect(report.marks[0].perimeterMm).toBeCloseTo(72, 9);
+    expect(report.marks[0].boxMm).toEqual({ x: 20, y: 20, width: 108, height: 78 });
+  });
+});
