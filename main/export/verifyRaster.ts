@@ -3,7 +3,7 @@
 import { SaxesParser } from 'saxes';
 import { TallyError, type Warning } from '../../shared-core/errors';
 import { DISTORTION_LIMITS, gate, lieFactors, summariseLieFactors, type VerifyReport } from '../../shared-core/integrity/index';
-import { markCoverages } from '../raster/index';
+import { markCoveragesByRegion } from '../raster/index';
 
 export interface RasterMarkCheck {
   id: string;
@@ -184,11 +184,13 @@ export function verifyRaster(svg: string, report: VerifyReport, opts: RasterChec
   const maxEdge = opts.maxEdgeError ?? DISTORTION_LIMITS.high - 1;
   const warnEdge = opts.warnEdgeError ?? maxEdge / 2;
   const pxPerMm = ppi / MM_PER_INCH;
-  // Each mark rendered alone on the full page, so its pixels are exactly the ones it has in the PNG (a crop
-  // to the mark's box would be faster, but resvg then rounds its edges a little differently: about 1e-3 off, measured).
-  const ids = report.marks.map((m) => m.id);
-  const whole = markCoverages(marksOnlySvg(svg), ids, { ppi }).map((c) => c.mm2);
-  const filled = report.reading === 'fill' ? markCoverages(marksOnlyPartSvg(svg, 'filled'), ids, { ppi }).map((c) => c.mm2) : null;
+  // Each mark's pixels on the full page, exactly as in the PNG (a crop of the page to the mark's box would
+  // make resvg round its edges a little differently: about 1e-3 off, measured). Marks whose boxes lie apart
+  // share one render and are summed over their own boxes (see markCoveragesByRegion).
+  const boxes = report.marks.map((m) => ({ id: m.id, boxMm: m.boxMm }));
+  const byRegion = { ppi, bleedMm: report.page.bleedMm };
+  const whole = markCoveragesByRegion(marksOnlySvg(svg), boxes, byRegion).map((c) => c.mm2);
+  const filled = report.reading === 'fill' ? markCoveragesByRegion(marksOnlyPartSvg(svg, 'filled'), boxes, byRegion).map((c) => c.mm2) : null;
 
   const marks: RasterMarkCheck[] = report.marks.map((m, i) => {
     const cov = whole[i];

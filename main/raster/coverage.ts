@@ -2,7 +2,7 @@
 
 import { SaxesParser } from 'saxes';
 import { TallyError } from '../../shared-core/errors';
-import { renderSvgPixels } from './rasterizeSvg';
+import { rasterSizePx, readSvgPageSize, renderSvgPixels } from './rasterizeSvg';
 
 /** A rectangle of whole pixels; fractional edges widen to whole pixels, and it is clipped to the image. */
 export interface PixelRegion {
@@ -111,11 +111,12 @@ function findElementSpans(svg: string, ids: readonly string[]): ElementSpan[] {
   return [...found.values()].sort((a, b) => a.start - b.start);
 }
 
-function hideSpans(svg: string, spans: readonly ElementSpan[], keepId: string): string {
+function hideSpans(svg: string, spans: readonly ElementSpan[], keep: string | ReadonlySet<string>): string {
+  const kept = typeof keep === 'string' ? (id: string) => id === keep : (id: string) => keep.has(id);
   const parts: string[] = [];
   let at = 0;
   for (const span of spans) {
-    if (span.id === keepId) continue;
+    if (kept(span.id)) continue;
     const g = span.prefix ? `${span.prefix}:g` : 'g';
     parts.push(svg.slice(at, span.start), `<${g} display="none">`, svg.slice(span.start, span.end), `</${g}>`);
     at = span.end;
@@ -153,4 +154,68 @@ export function markCoverages(svg: string, markIds: readonly string[], options: 
     out.push({ id: variant.id, px, mm2: px * raster.mmPerPx * raster.mmPerPx });
   }
   return out;
+}
+
+/** A mark for markCoveragesByRegion: its id and the bounding box of its ink in page millimetres (origin at the trim corner). */
+export interface MarkBox {
+  id: string;
+  boxMm: { x: number; y: number; width: number; height: number } | null;
+}
+
+/**
+ * Pixels around a box that anti-aliasing may touch: a rasteriser colours a pixel only where the shape
+ * covers part of it, so one pixel each way is enough; two leave room for float rounding of the box.
+ */
+const EDGE_PX = 2;
+
+/**
+ * The same figures as markCoverages (each mark's ink as if rendered alone on the page), with far fewer
+ * renders: marks whose pixel boxes (grown by EDGE_PX) do not meet share one render, and each mark's alpha
+ * is summed over its own box. No other mark of that render touches those pixels, so the sum is exactly the
+ * one a render of the mark alone gives. The boxes come from the vector verification of the same file;
+ * a mark with no box is rendered alone over the whole page, as before.
+ */
+export function markCoveragesByRegion(svg: string, marks: readonly MarkBox[], options: { ppi?: number; bleedMm: number }): MarkCoverage[] {
+  const ppi = options.ppi ?? 300;
+  const ids = marks.map((m) => m.id);
+  const spans = findElementSpans(svg, ids);
+  // The scale resvg renders at: the page width over its whole-pixel width (see renderSvgPixels).
+  const page = readSvgPageSize(svg);
+  const mmPerPx = page.widthMm / rasterSizePx(page, ppi).widthPx;
+  const pixelBox = (b: NonNullable<MarkBox['boxMm']>): PixelRegion => {
+    const x0 = Math.floor((b.x + options.bleedMm) / mmPerPx) - EDGE_PX;
+    const y0 = Math.floor((b.y + options.bleedMm) / mmPerPx) - EDGE_PX;
+    const x1 = Math.ceil((b.x + b.width + options.bleedMm) / mmPerPx) + EDGE_PX;
+    const y1 = Math.ceil((b.y + b.height + options.bleedMm) / mmPerPx) + EDGE_PX;
+    return { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
+  };
+  const meet = (a: PixelRegion, b: PixelRegion) => a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+  // Greedy layers: each mark joins the first layer none of whose boxes it meets.
+  const layers: { ids: Set<string>; boxes: Map<string, PixelRegion> }[] = [];
+  const alone: string[] = [];
+  for (const m of marks) {
+    if (!m.boxMm) {
+      alone.push(m.id);
+      continue;
+    }
+    const box = pixelBox(m.boxMm);
+    let layer = layers.find((l) => ![...l.boxes.values()].some((b) => meet(b, box)));
+    if (!layer) layers.push((layer = { ids: new Set(), boxes: new Map() }));
+    layer.ids.add(m.id);
+    layer.boxes.set(m.id, box);
+  }
+  const out = new Map<string, MarkCoverage>();
+  for (const layer of layers) {
+    const raster = renderSvgPixels(hideSpans(svg, spans, layer.ids), { ppi });
+    for (const [id, box] of layer.boxes) {
+      const px = alphaCoverage(raster.pixels, raster.widthPx, raster.heightPx, box);
+      out.set(id, { id, px, mm2: px * raster.mmPerPx * raster.mmPerPx });
+    }
+  }
+  for (const id of alone) {
+    const raster = renderSvgPixels(hideSpans(svg, spans, id), { ppi });
+    const px = alphaCoverage(raster.pixels, raster.widthPx, raster.heightPx);
+    out.set(id, { id, px, mm2: px * raster.mmPerPx * raster.mmPerPx });
+  }
+  return ids.map((id) => out.get(id) as MarkCoverage);
 }

@@ -23,8 +23,10 @@ export {
   alphaCoverage,
   coverageMm2,
   markCoverages,
+  markCoveragesByRegion,
   isolateMark,
   isolateEachMark,
   type PixelRegion,
   type MarkCoverage,
+  type MarkBox,
 } from './coverage';

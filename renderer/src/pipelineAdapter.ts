@@ -44,7 +44,8 @@ function honestyOf(report: VerifyReport): HonestyView {
     notes: [...report.notes],
     preflight: report.preflight.map((f) => ({ code: f.code, message: f.message })),
     warnings: report.warnings.map((w) => ({ code: w.code, message: w.message })),
-    smallestGlyph: report.smallestGlyph ? { label: report.smallestGlyph.label, inkMm2: report.smallestGlyph.inkMm2 } : null,
+    // The smallest ink actually drawn (partial glyphs included), which is what print legibility depends on.
+    smallestGlyph: report.smallestInk ? { label: report.smallestInk.label, inkMm2: report.smallestInk.inkMm2 } : null,
   };
 }
 

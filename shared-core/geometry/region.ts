@@ -17,10 +17,13 @@ export interface Box {
 
 export const EMPTY_BOX: Box = { x: 0, y: 0, width: 0, height: 0 };
 
-/** Decimal digits clipper2 keeps for coordinates of this extent: ~1e9 integer steps across the shape. */
+/**
+ * Decimal digits clipper2 keeps for coordinates of this extent: ~1e9 integer steps across the shape, at
+ * most 8 (clipper2 refuses more: "Precision is out of range"), which still leaves 1e8 steps per unit.
+ */
 export function clipperPrecision(extent: number): number {
   if (!(extent > 0) || !Number.isFinite(extent)) return 6;
-  return Math.max(-2, Math.min(12, Math.floor(9 - Math.log10(extent))));
+  return Math.max(-2, Math.min(8, Math.floor(9 - Math.log10(extent))));
 }
 
 export function boxOf(paths: PathsD): Box {
@@ -159,6 +162,12 @@ export function transformRegion(region: Region, m: Matrix): Region {
     // Keep orientation consistent under reflections, so nonzero reading is unchanged.
     return flip ? out.reverse() : out;
   });
+}
+
+/** The region moved by (dx, dy): a pure translate keeps every ring's area, length and orientation. */
+export function translateRegion(region: Region, dx: number, dy: number): Region {
+  if (dx === 0 && dy === 0) return region;
+  return region.map((ring) => ring.map((p) => ({ x: p.x + dx, y: p.y + dy })));
 }
 
 export function rectRing(b: Box): PathD {

@@ -1,7 +1,11 @@
 // Turns a lie-factor report into pass or refuse, with the reason in plain words and what to try next.
 
 import { TallyError } from '../errors';
+import type { IntegrityFinding } from './check';
 import type { LieFactorPair, LieFactorReport } from './lieFactor';
+
+/** Where the gate's rule comes from, named on each of its findings. */
+const TUFTE_BASIS = 'Tufte, The Visual Display of Quantitative Information (1983), p. 57';
 
 /**
  * Tufte (The Visual Display of Quantitative Information, 1983, ch. 2, p. 57): lie factors
@@ -32,6 +36,8 @@ export interface GateResult {
   worst?: LieFactorPair;
   /** Every reason to refuse, most serious first. Empty when the chart passes. */
   problems: string[];
+  /** The same reasons, each with its own stable code and the fix for that problem (same order). */
+  findings: IntegrityFinding[];
   suggestions: string[];
   /** What could not be judged (a single category, all zeros). */
   notes: string[];
@@ -73,6 +79,25 @@ function numberText(value: number): string {
   return Number.isInteger(value) ? String(value) : String(Number(value.toPrecision(6)));
 }
 
+/**
+ * "(3.00 − 1) / (3.75 − 1) = 0.73": the effect form of the lie factor (Tufte 1983, p. 57) with the ratios
+ * written to as many decimals (2 to 6) as it takes for the sum of the printed numbers to give the printed factor.
+ */
+export function effectForm(graphicRatio: number, dataRatio: number, lieFactor: number, low: number, high: number): string {
+  const shown = factorText(lieFactor, low, high);
+  let digits = 2;
+  let g = graphicRatio.toFixed(digits);
+  let d = dataRatio.toFixed(digits);
+  while (digits < 6) {
+    const redone = (Number(g) - 1) / (Number(d) - 1);
+    if (Number.isFinite(redone) && fixed(redone, shown.split('.')[1]?.length ?? 2) === shown) break;
+    digits += 1;
+    g = graphicRatio.toFixed(digits);
+    d = dataRatio.toFixed(digits);
+  }
+  return `(${g} − 1) / (${d} − 1) = ${shown}`;
+}
+
 /** "drawn <phrase> <reference>" for the reading at hand. */
 function drawnAs(times: string, only: boolean, reading: GateReading | undefined): string {
   const o = only ? 'only ' : '';
@@ -103,6 +128,8 @@ function pairSentence(pair: LieFactorPair, low: number, high: number, reading: G
   const lf = pair.lieFactor as number;
   const gr = pair.graphicRatio as number;
   const factor = `lie factor ${factorText(lf, low, high)}`;
+  // Tufte's effect form, so a reader can redo the sum: (drawn ratio - 1) / (data ratio - 1).
+  const form = pair.basis === 'effect' ? `: ${effectForm(gr, pair.dataRatio, lf, low, high)}, the growth drawn over the growth in the data` : '';
   if (pair.basis === 'ratio') {
     const basisNote = 'on the ratio basis, because the values differ by less than 2%';
     if (pair.dataEffect === 0) {
@@ -112,12 +139,12 @@ function pairSentence(pair: LieFactorPair, low: number, high: number, reading: G
   }
   if (gr <= 1) {
     const how = gr === 1 ? 'drawn the same size as' : drawnAs(ratioText(gr), false, reading);
-    return `${pair.label} is ${how} ${pair.reference} although its value is ${ratioText(pair.dataRatio)}x as large (${factor}, ${allowed}).`;
+    return `${pair.label} is ${how} ${pair.reference} although its value is ${ratioText(pair.dataRatio)}x as large (${factor}, ${allowed})${form}.`;
   }
   if (lf > 1) {
-    return `${pair.label} is ${drawnAs(ratioText(gr), false, reading)} ${pair.reference} but its value is only ${ratioText(pair.dataRatio)}x (${factor}, ${allowed}).`;
+    return `${pair.label} is ${drawnAs(ratioText(gr), false, reading)} ${pair.reference} but its value is only ${ratioText(pair.dataRatio)}x (${factor}, ${allowed})${form}.`;
   }
-  return `${pair.label} is ${drawnAs(ratioText(gr), true, reading)} ${pair.reference} although its value is ${ratioText(pair.dataRatio)}x (${factor}, ${allowed}).`;
+  return `${pair.label} is ${drawnAs(ratioText(gr), true, reading)} ${pair.reference} although its value is ${ratioText(pair.dataRatio)}x (${factor}, ${allowed})${form}.`;
 }
 
 function addSuggestions(out: Set<string>, opts: GateOptions, kinds: Set<string>): void {
@@ -126,6 +153,8 @@ function addSuggestions(out: Set<string>, opts: GateOptions, kinds: Set<string>)
   if (kinds.has('not-drawn')) {
     out.add('A value smaller than one unit still needs ink: use partial glyphs cut by ink (rounding "ink-cut") or a smaller unit.');
   }
+  // Advice about rounding, sizes and scaling speaks to a distorted drawing, not to a missing or zero category.
+  if (!kinds.has('lie-factor') && !kinds.has('spread')) return;
   if (rounding === 'whole') {
     out.add('Show remainders as partial glyphs cut by ink (rounding "ink-cut"), so half a unit shows half of a glyph\'s ink.');
     out.add('Or use a smaller unit, so rounding to whole glyphs changes each amount less.');
@@ -163,7 +192,12 @@ export function gate(report: LieFactorReport, opts: GateOptions = {}): GateResul
   }
   const reading = opts.reading;
   const problems: string[] = [];
+  const found: { code: string; message: string; category?: string }[] = [];
   const kinds = new Set<string>();
+  const flag = (code: string, message: string, category?: string) => {
+    problems.push(message);
+    found.push(category === undefined ? { code, message } : { code, message, category });
+  };
 
   const failing = report.pairs
     .filter((pair) => pair.lieFactor === null || !within(pair.lieFactor, low, high))
@@ -175,32 +209,50 @@ export function gate(report: LieFactorReport, opts: GateOptions = {}): GateResul
       if (referenceReported) continue;
       referenceReported = true;
     }
-    if (pair.problem === 'reference-not-drawn' || pair.problem === 'not-drawn') kinds.add('not-drawn');
-    problems.push(pairSentence(pair, low, high, reading));
+    const sentence = pairSentence(pair, low, high, reading);
+    if (pair.problem === 'reference-not-drawn') {
+      kinds.add('not-drawn');
+      flag('reference-not-drawn', sentence, pair.reference);
+    } else if (pair.problem === 'not-drawn') {
+      kinds.add('not-drawn');
+      flag('not-drawn', sentence, pair.label);
+    } else {
+      kinds.add('lie-factor');
+      flag('lie-factor', sentence, pair.label);
+    }
   }
 
   if (report.pairs.length === 0 && report.notDrawn.length > 0) {
     kinds.add('not-drawn');
-    problems.push(`${report.reference} (value ${numberText(report.referenceData ?? 0)}) is not drawn at all.`);
+    flag('reference-not-drawn', `${report.reference} (value ${numberText(report.referenceData ?? 0)}) is not drawn at all.`, report.reference ?? undefined);
   }
 
   for (const zero of report.zeros) {
     if (zero.drawnAsZero) continue;
     kinds.add('zero');
-    problems.push(`${zero.label} has a value of 0 but is drawn with ink (measured ${numberText(zero.graphic)}); a zero must show nothing.`);
+    flag('zero-drawn', `${zero.label} has a value of 0 but is drawn with ink (measured ${numberText(zero.graphic)}); a zero must show nothing.`, zero.label);
   }
 
   const spreadLimit = Math.min(high, 1 / low);
   if (failing.length === 0 && report.spread !== null && report.spreadBetween && !within(report.spread, 1 / spreadLimit, spreadLimit)) {
     const { highest, lowest } = report.spreadBetween;
-    problems.push(
+    flag(
+      'spread',
       `The chart does not keep one scale: per unit of value, ${highest} is drawn ${factorText(report.spread, 1 / spreadLimit, spreadLimit)}x as large as ${lowest} ` +
         `(allowed up to ${numberText(spreadLimit)}).`,
+      highest,
     );
     kinds.add('spread');
   }
 
-  const result: GateResult = { pass: problems.length === 0, problems, suggestions: [], notes: [...report.notes], limits: { low, high } };
+  const fixFor = (code: string): string => {
+    const kind = code === 'reference-not-drawn' ? 'not-drawn' : code === 'zero-drawn' ? 'zero' : code;
+    const own = new Set<string>();
+    addSuggestions(own, opts, new Set([kind]));
+    return [...own][0] ?? 'Repeat or stack glyphs of one size with partial glyphs cut by ink, so count, length and ink stay in proportion to the data.';
+  };
+  const findings: IntegrityFinding[] = found.map((f) => ({ ...f, severity: 'blocking', fix: fixFor(f.code), basis: TUFTE_BASIS }));
+  const result: GateResult = { pass: problems.length === 0, problems, findings, suggestions: [], notes: [...report.notes], limits: { low, high } };
   if (report.worst) result.worst = report.worst;
   if (!result.pass) {
     result.reason = problems[0];

@@ -13,6 +13,7 @@ import { DISTORTION_LIMITS, gate, type GateMode, type GateRounding } from './gat
 import { lieFactors, type LieFactorPair, type LieFactorReport } from './lieFactor';
 import type { IntegrityFinding } from './check';
 import { preflight, type Finding, type PreflightOptions } from './preflight';
+import { createShapeInkCache } from './shapeInk';
 
 export interface VerifyOptions {
   /** Distortion limits; default Tufte's 0.95 and 1.05. */
@@ -38,6 +39,8 @@ export interface MarkMeasurement {
   graphicUnit: 'glyphs' | 'mm' | 'mm2' | 'share';
   /** All of the mark's ink (the union of its pieces), in mm². */
   inkMm2: number;
+  /** Whether the mark has any ink: "not drawn" belongs on this row only when this is false. */
+  drawn: boolean;
   /** Length of the ink's outline (outer rings and holes), in mm; used to judge raster precision. */
   perimeterMm: number;
   /** Glyphs drawn, partial ink included (count and length readings). */
@@ -81,6 +84,8 @@ export interface VerifyReport {
   page: { widthMm: number; heightMm: number; bleedMm: number };
   /** The smallest single glyph (a full piece, or the smallest mark where marks are single glyphs). */
   smallestGlyph: { markId: string; label: string; inkMm2: number; perimeterMm: number } | null;
+  /** The smallest ink actually drawn as one piece: partial glyphs included (what print preflight should name). */
+  smallestInk: { markId: string; label: string; inkMm2: number; perimeterMm: number; part: 'full' | 'partial' | 'glyph' } | null;
   /** The summary embedded in the file, as found. */
   summary: ChartSummary | null;
 }
@@ -112,6 +117,25 @@ type Owner =
   | { kind: 'rule' }
   | { kind: 'background' }
   | { kind: 'other' };
+
+/** Problems found in the file, each with its own stable code and the fix for that problem. */
+class ProblemList {
+  readonly findings: IntegrityFinding[] = [];
+  get length(): number {
+    return this.findings.length;
+  }
+  add(code: string, message: string, fix: string, category?: string): void {
+    const finding: IntegrityFinding = { code, severity: 'blocking', message, fix };
+    if (category !== undefined) finding.category = category;
+    this.findings.push(finding);
+  }
+  messages(): string[] {
+    return this.findings.map((f) => f.message);
+  }
+}
+
+/** The one fix for a file whose own records disagree with its marks: only a hand edit (or a broken writer) does that. */
+const REEXPORT_FIX = 'Export the chart again from its document; a file edited by hand no longer matches its data.';
 
 function num(n: number): string {
   if (!Number.isFinite(n)) return String(n);
@@ -201,8 +225,22 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   const budget = newBudget(2_000_000, 20_000_000);
   const tolUnits = TOLERANCE_MM / s;
 
+  // Each distinct shape is measured once; its copies (every `use` of a glyph) are exact translates of it.
+  const shapeInk = createShapeInkCache(budget);
   const inkOf = (shapes: PaintedShape[], tolerance = tolUnits): Ink => {
     if (shapes.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
+    if (shapes.length === 1) {
+      const one = shapeInk(shapes[0], tolerance);
+      const b = one.boxUnits;
+      return {
+        get region() {
+          return one.region();
+        },
+        areaMm2: one.areaUnits2 * s * s,
+        perimeterMm: one.perimeterUnits * s,
+        boxMm: b ? { x: b.x * s, y: b.y * s, width: b.width * s, height: b.height * s } : null,
+      };
+    }
     const region = inkOfShapes(shapes, tolerance, budget);
     return inkOfRegion(region);
   };
@@ -243,7 +281,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     warnings.push({ code: 'mark-stroked', message: `Marks ${markStrokes.slice(0, 5).join(', ')} are stroked; strokes are measured as ink, but the format expects filled pieces only.` });
   }
 
-  const problems: string[] = [];
+  const problems = new ProblemList();
   const suggestions: string[] = [];
   const notes: string[] = [];
 
@@ -257,10 +295,9 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   const markInks: MarkInk[] = file.marks.map((mark) => {
     const pieces = mark.pieces.map((piece) => ({ piece, ink: inkOf(byPiece.get(piece) ?? []) }));
     const loose = looseByMark.get(mark) ?? [];
-    const regions = pieces.map((p) => p.ink.region).filter((r) => r.length);
-    if (loose.length) regions.push(inkOf(loose).region);
-    const ink = regions.length === 0 ? inkOf([]) : regions.length === 1 ? inkOfRegion(regions[0]) : inkOfRegion(disjoint(regions) ? regions.flat() : unionRegions(regions));
-    return { mark, ink, pieces, other: loose.length };
+    const inks = pieces.map((p) => p.ink);
+    if (loose.length) inks.push(inkOf(loose));
+    return { mark, ink: unionInks(inks, inkOfRegion), pieces, other: loose.length };
   });
   const legendInks = file.legendKeys.map((_, i) => inkOf(byLegend.get(i) ?? []));
   checkInkShows(file, collected.shapes, owners, markInks, reading, problems, roughInkOf);
@@ -278,7 +315,12 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
       const lo = Math.min(...inks);
       const hi = Math.max(...inks);
       if (hi / lo - 1 > SAME_GLYPH_TOLERANCE) {
-        problems.push(`The glyphs of "${mi.mark.label}" are not all one size (ink from ${num(lo)} to ${num(hi)} mm²); every glyph must stand for the same amount.`);
+        problems.add(
+          'glyph-size-varies',
+          `The glyphs of "${mi.mark.label}" are not all one size (ink from ${num(lo)} to ${num(hi)} mm²); every glyph must stand for the same amount.`,
+          `Draw every whole glyph of "${mi.mark.label}" at one size, so each carries the same ink.`,
+          mi.mark.label,
+        );
       }
       unitByMark.set(mi.mark, mean);
     }
@@ -309,6 +351,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
       graphic: 0,
       graphicUnit: UNIT_OF_READING[reading],
       inkMm2: ink.areaMm2,
+      drawn: ink.areaMm2 > 0,
       perimeterMm: ink.perimeterMm,
       pieces: counts,
       boxMm: ink.boxMm,
@@ -355,7 +398,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   const lf = lieFactors(items);
   const mode: GateMode = MODE_OF_READING[reading];
   const verdict = gate(lf, { low, high, mode, reading, ...(opts.rounding ? { rounding: opts.rounding } : {}) });
-  const allProblems = [...verdict.problems, ...problems];
+  const allProblems = [...verdict.problems, ...problems.messages()];
   if (!verdict.pass) {
     // Close values: the effect form divides the drawing's small error by a small data effect.
     const w = lf.worst;
@@ -376,9 +419,8 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     }
   }
   for (const sgg of verdict.suggestions) if (!suggestions.includes(sgg)) suggestions.push(sgg);
-  if (problems.length && !verdict.problems.length) {
-    suggestions.push('Export the chart again from its document; a file edited by hand no longer matches its data.');
-  }
+  // Each problem's own fix, after the gate's, for the CLI's and the app's list of what to try.
+  for (const f of problems.findings) if (!suggestions.includes(f.fix)) suggestions.push(f.fix);
   notes.push(...verdict.notes);
 
   const measured = summary?.measured;
@@ -390,6 +432,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   const preflightFindings = preflightFromFile(file, collected.shapes, owners, markInks, legendInks, byText, rest, roughInkOf, opts);
 
   const smallestGlyph = findSmallestGlyph(markInks, fulls, reading);
+  const smallestInk = findSmallestInk(markInks, reading);
 
   const pass = allProblems.length === 0;
   const report: VerifyReport = {
@@ -400,10 +443,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     spread: lf.spread,
     marks,
     problems: allProblems,
-    findings: [
-      ...verdict.problems.map((message): IntegrityFinding => ({ code: 'lie-factor', severity: 'blocking', message, fix: verdict.suggestions[0] ?? '' })),
-      ...problems.map((message): IntegrityFinding => ({ code: 'file-mismatch', severity: 'blocking', message, fix: suggestions[suggestions.length - 1] ?? '' })),
-    ],
+    findings: [...verdict.findings, ...problems.findings],
     suggestions: pass ? [] : suggestions,
     notes,
     preflight: preflightFindings,
@@ -411,16 +451,13 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
     limits: { low, high },
     page: { widthMm: page.widthMm, heightMm: page.heightMm, bleedMm: page.bleedMm },
     smallestGlyph,
+    smallestInk,
     summary,
   };
   if (!pass) report.reason = allProblems[0];
   return report;
 }
 
-/**
- * True when no two regions' bounding boxes meet, so their union is just all their rings together and the
- * (costly) polygon union can be skipped. Boxes that merely touch count as meeting.
- */
 /** A CSS colour as lower-case #rrggbb where it is a plain colour we can read; otherwise as written. */
 export function normaliseColour(paint: string | undefined): string {
   const p = (paint ?? '#000000').trim().toLowerCase();
@@ -444,7 +481,7 @@ function checkInkShows(
   owners: Map<PaintedShape, Owner>,
   markInks: { mark: ChartSvgMark; ink: Ink }[],
   reading: Reading,
-  problems: string[],
+  problems: ProblemList,
   roughInkOf: (shapes: PaintedShape[]) => Ink,
 ): void {
   const paper = file.backgrounds.length ? normaliseColour(backgroundPaint(file.backgrounds[file.backgrounds.length - 1])) : '#ffffff';
@@ -461,10 +498,20 @@ function checkInkShows(
   });
   for (const [mark, p] of paints) {
     if (p.all.size === 1 && p.all.has(paper)) {
-      problems.push(`"${mark.label}" is painted in the colour of the page (${paper}), so a reader sees nothing of it; give it a colour that shows.`);
+      problems.add(
+        'ink-page-coloured',
+        `"${mark.label}" is painted in the colour of the page (${paper}), so a reader sees nothing of it; give it a colour that shows.`,
+        `Give "${mark.label}" a colour that stands out from the page (${paper}).`,
+        mark.label,
+      );
     }
     if (reading === 'fill' && p.filled.size && p.rest.size && [...p.filled].every((c) => p.rest.has(c))) {
-      problems.push(`The filled and unfilled parts of "${mark.label}" are the same colour, so the fill cannot be seen; paint the unfilled part paler.`);
+      problems.add(
+        'fill-parts-same-colour',
+        `The filled and unfilled parts of "${mark.label}" are the same colour, so the fill cannot be seen; paint the unfilled part paler.`,
+        `Paint the unfilled part of "${mark.label}" in a paler colour than its filled part.`,
+        mark.label,
+      );
     }
   }
   // Anything painted after a mark that lands on its ink hides part of it.
@@ -488,11 +535,27 @@ function checkInkShows(
       const hidden = regionArea(intersectRegions(over.region, mi.ink.region)) * s * s;
       if (hidden > 1e-6 * Math.max(mi.ink.areaMm2, 1e-9)) {
         reported.add(mi.mark);
-        problems.push(`Something painted after "${mi.mark.label}" covers ${num(hidden)} mm² of its ink, so the reader sees less than is measured; nothing may be drawn over a mark.`);
+        const what = OVER_NAMES[owner?.kind ?? 'other'];
+        problems.add(
+          'painted-over',
+          `Something painted after "${mi.mark.label}" covers ${num(hidden)} mm² of its ink (${what}), so the reader sees less than is measured; nothing may be drawn over a mark.`,
+          `Make room so that nothing overlaps "${mi.mark.label}": a larger page, a larger unit (fewer glyphs) or fewer rows, so the marks, labels, key and text each fit in their own place.`,
+          mi.mark.label,
+        );
       }
     }
   }
 }
+
+/** What covered a mark, in words, by the kind of element it belongs to. */
+const OVER_NAMES: Record<Owner['kind'], string> = {
+  mark: 'another mark',
+  legend: 'the key',
+  text: 'text (a title, label or source line)',
+  rule: 'a rule or baseline',
+  background: 'a background',
+  other: 'artwork',
+};
 
 function backgroundPaint(el: XmlElement): string | undefined {
   const style = /(?:^|;)\s*fill\s*:\s*([^;]+)/.exec(el.attrs.style ?? '')?.[1];
@@ -503,16 +566,76 @@ function boxesMeet(a: { x: number; y: number; width: number; height: number }, b
   return a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
 }
 
-function disjoint(regions: Region[]): boolean {
-  const boxes = regions.map((r) => boxOf(r)).sort((a, b) => a.x - b.x);
-  for (let i = 0; i < boxes.length; i++) {
-    const a = boxes[i];
-    for (let j = i + 1; j < boxes.length && boxes[j].x <= a.x + a.width; j++) {
-      const b = boxes[j];
-      if (b.y <= a.y + a.height && a.y <= b.y + b.height) return false;
+/**
+ * The union of several inks, running the (costly) polygon union only within groups whose bounding boxes
+ * meet (boxes that merely touch count as meeting): inks in different groups cannot overlap, so the union
+ * is their rings side by side, its area the sum of theirs.
+ */
+function unionInks(inks: Ink[], inkOfRegion: (region: Region) => Ink): Ink {
+  const drawn = inks.filter((ink) => ink.boxMm !== null);
+  if (drawn.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
+  if (drawn.length === 1) return drawn[0];
+  // Union-find over box overlaps. Boxes are binned on a grid of cells as large as the largest box, so each
+  // box meets only boxes filed in the cells it covers (at most four): linear in the number of pieces.
+  const boxes = drawn.map((ink) => ink.boxMm as Box);
+  const cell = Math.max(...boxes.map((b) => Math.max(b.width, b.height))) || 1;
+  const parent = drawn.map((_, i) => i);
+  const find = (i: number): number => {
+    while (parent[i] !== i) i = parent[i] = parent[parent[i]];
+    return i;
+  };
+  const bins = new Map<string, number[]>();
+  boxes.forEach((a, i) => {
+    const x0 = Math.floor(a.x / cell);
+    const x1 = Math.floor((a.x + a.width) / cell);
+    const y0 = Math.floor(a.y / cell);
+    const y1 = Math.floor((a.y + a.height) / cell);
+    for (let cx = x0; cx <= x1; cx++) {
+      for (let cy = y0; cy <= y1; cy++) {
+        const key = `${cx},${cy}`;
+        const bin = bins.get(key);
+        if (!bin) {
+          bins.set(key, [i]);
+          continue;
+        }
+        for (const j of bin) {
+          const b = boxes[j];
+          if (b.x <= a.x + a.width && a.x <= b.x + b.width && b.y <= a.y + a.height && a.y <= b.y + b.height) parent[find(j)] = find(i);
+        }
+        bin.push(i);
+      }
     }
+  });
+  const groups = new Map<number, Ink[]>();
+  drawn.forEach((ink, i) => {
+    const root = find(i);
+    const list = groups.get(root);
+    if (list) list.push(ink);
+    else groups.set(root, [ink]);
+  });
+  const parts = [...groups.values()].map((group) => (group.length === 1 ? group[0] : inkOfRegion(unionRegions(group.map((g) => g.region)))));
+  let areaMm2 = 0;
+  let perimeterMm = 0;
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const p of parts) {
+    areaMm2 += p.areaMm2;
+    perimeterMm += p.perimeterMm;
+    const b = p.boxMm;
+    if (!b) continue;
+    x0 = Math.min(x0, b.x);
+    y0 = Math.min(y0, b.y);
+    x1 = Math.max(x1, b.x + b.width);
+    y1 = Math.max(y1, b.y + b.height);
   }
-  return true;
+  let region: Region | null = null;
+  return {
+    get region() {
+      return (region ??= parts.flatMap((p) => p.region));
+    },
+    areaMm2,
+    perimeterMm,
+    boxMm: x0 <= x1 ? { x: x0, y: y0, width: x1 - x0, height: y1 - y0 } : null,
+  };
 }
 
 /** The lie factors as a report gives them: the worst, its pair, and every pair; the raster check uses it too. */
@@ -568,7 +691,7 @@ function checkSameShapeSameSize(
   fulls: (mi: { mark: ChartSvgMark; pieces: PieceInk[] }) => PieceInk[],
   legendInks: Ink[],
   file: ChartSvgFile,
-  problems: string[],
+  problems: ProblemList,
 ): void {
   const firsts = markInks.map((mi) => ({ mark: mi.mark, ink: fulls(mi)[0]?.ink })).filter((x): x is { mark: ChartSvgMark; ink: Ink } => !!x.ink);
   for (let i = 0; i < firsts.length; i++) {
@@ -578,9 +701,12 @@ function checkSameShapeSameSize(
       if (!sameShape(a.ink, b.ink)) continue;
       const ratio = b.ink.areaMm2 / a.ink.areaMm2;
       if (Math.abs(ratio - 1) > SAME_GLYPH_TOLERANCE) {
-        problems.push(
+        problems.add(
+          'same-glyph-two-sizes',
           `The glyphs of "${b.mark.label}" carry ${num(ratio)}x the ink of those of "${a.mark.label}" although they are the same glyph; ` +
             'every glyph in the chart must be drawn at one size.',
+          'Draw the glyph at one size throughout the chart, so each copy stands for the same amount.',
+          b.mark.label,
         );
         return;
       }
@@ -591,9 +717,11 @@ function checkSameShapeSameSize(
     const match = firsts.find((f) => sameShape(f.ink, key));
     if (match && relDiff(match.ink.areaMm2, key.areaMm2) > SAME_GLYPH_TOLERANCE) {
       const name = file.legendKeys[k].glyph ? ` (${file.legendKeys[k].glyph})` : '';
-      problems.push(
+      problems.add(
+        'key-glyph-size',
         `The legend's key glyph${name} carries ${num(key.areaMm2)} mm² of ink but the same glyph in "${match.mark.label}" carries ${num(match.ink.areaMm2)} mm²; ` +
           'the key must show the unit glyph at the size the chart uses.',
+        'Draw the key\'s glyph at the size the marks use.',
       );
     }
   });
@@ -604,7 +732,7 @@ function measurePitches(
   markInks: { mark: ChartSvgMark; pieces: PieceInk[] }[],
   fulls: (mi: { mark: ChartSvgMark; pieces: PieceInk[] }) => PieceInk[],
   out: Map<ChartSvgMark, { pitch: number; start: number; axis: 'x' | 'y' } | null>,
-  problems: string[],
+  problems: ProblemList,
   notes: string[],
   summary: ChartSummary | null,
 ): number | null {
@@ -624,11 +752,21 @@ function measurePitches(
     // The stack must be contiguous from the baseline: slots 0..n-1 for the full glyphs, n for a partial one.
     const slots = pts.map((p) => p.slot).sort((a, b) => a - b);
     if (slots.some((sl, i) => sl !== i)) {
-      problems.push(`The stack of "${mi.mark.label}" skips or repeats slots (${slots.join(', ')}); its glyphs must follow one another from the baseline.`);
+      problems.add(
+        'stack-slots',
+        `The stack of "${mi.mark.label}" skips or repeats slots (${slots.join(', ')}); its glyphs must follow one another from the baseline.`,
+        `Stack the glyphs of "${mi.mark.label}" one per slot from the baseline, without gaps or repeats.`,
+        mi.mark.label,
+      );
     }
     const partial = mi.pieces.find((p) => p.piece.part === 'partial');
     if (partial && partial.piece.slot !== null && partial.piece.slot !== slots.length) {
-      problems.push(`The partial glyph of "${mi.mark.label}" sits in slot ${partial.piece.slot}, but the stack has ${slots.length} whole glyphs below it.`);
+      problems.add(
+        'stack-partial-slot',
+        `The partial glyph of "${mi.mark.label}" sits in slot ${partial.piece.slot}, but the stack has ${slots.length} whole glyphs below it.`,
+        `Put the partial glyph of "${mi.mark.label}" directly on top of its whole glyphs.`,
+        mi.mark.label,
+      );
     }
   }
   if (missingSlots) notes.push('Some stack glyphs have no data-slot, so their positions could not be checked.');
@@ -665,7 +803,12 @@ function measurePitches(
       ...pts.map((p) => Math.abs(p[axis === 'y' ? 'x' : 'y'] - (across.start + across.slope * p.slot))),
     );
     if (off > slack) {
-      problems.push(`The glyphs in the stack of "${mark.label}" are not evenly spaced along one line (off by up to ${num(off)} mm); each glyph takes one pitch.`);
+      problems.add(
+        'uneven-pitch',
+        `The glyphs in the stack of "${mark.label}" are not evenly spaced along one line (off by up to ${num(off)} mm); each glyph takes one pitch.`,
+        `Space the glyphs of "${mark.label}" at one pitch (glyph size plus gap) along one line.`,
+        mark.label,
+      );
     }
     out.set(mark, { pitch, start: along.start, axis });
   }
@@ -699,7 +842,12 @@ function measurePitches(
       const ref = starts[0];
       const worst = starts.reduce((w, st) => (Math.abs(st.start - ref.start) > Math.abs(w.start - ref.start) ? st : w), ref);
       if (Math.abs(worst.start - ref.start) > SAME_GLYPH_TOLERANCE * chartPitch + 1e-3) {
-        problems.push(`The stack of "${worst.mark.label}" starts ${num(Math.abs(worst.start - ref.start))} mm away from that of "${ref.mark.label}"; every stack must start on the same baseline.`);
+        problems.add(
+          'baseline-mismatch',
+          `The stack of "${worst.mark.label}" starts ${num(Math.abs(worst.start - ref.start))} mm away from that of "${ref.mark.label}"; every stack must start on the same baseline.`,
+          `Start the stack of "${worst.mark.label}" on the same baseline as the others.`,
+          worst.mark.label,
+        );
       }
     }
   }
@@ -722,34 +870,34 @@ function directionOf(
 }
 
 /** The summary's data must be the marks' data: same ids, labels and values. */
-function checkSummary(file: ChartSvgFile, marks: MarkMeasurement[], problems: string[]): void {
+function checkSummary(file: ChartSvgFile, marks: MarkMeasurement[], problems: ProblemList): void {
   const summary = file.summary;
   if (!summary) return;
   if (summary.mode && MODE_OF_READING[file.reading] !== summary.mode) {
-    problems.push(`The file's summary says mode "${summary.mode}" but its marks are read by ${file.reading}.`);
+    problems.add('summary-mismatch', `The file's summary says mode "${summary.mode}" but its marks are read by ${file.reading}.`, REEXPORT_FIX);
   }
   if (!Array.isArray(summary.data)) return;
   const byId = new Map(summary.data.map((d) => [d.id, d]));
   for (const m of marks) {
     const d = byId.get(m.id);
     if (!d) {
-      problems.push(`Mark "${m.id}" ("${m.label}") is not in the file's summary of its data.`);
+      problems.add('summary-mismatch', `Mark "${m.id}" ("${m.label}") is not in the file's summary of its data.`, REEXPORT_FIX, m.label);
       continue;
     }
     if (d.label !== m.label || !(Math.abs(d.value - m.value) <= 1e-9 * Math.max(1, Math.abs(d.value)))) {
-      problems.push(`The file's summary records "${d.label}" = ${num(d.value)}, but mark "${m.id}" carries "${m.label}" = ${num(m.value)}.`);
+      problems.add('summary-mismatch', `The file's summary records "${d.label}" = ${num(d.value)}, but mark "${m.id}" carries "${m.label}" = ${num(m.value)}.`, REEXPORT_FIX, m.label);
     }
   }
   const markIds = new Set(marks.map((m) => m.id));
   const lost = summary.data.filter((d) => !markIds.has(d.id));
-  if (lost.length) problems.push(`The file's summary lists ${lost.map((d) => `"${d.label}"`).join(', ')}, which the file does not draw.`);
+  if (lost.length) problems.add('summary-mismatch', `The file's summary lists ${lost.map((d) => `"${d.label}"`).join(', ')}, which the file does not draw.`, REEXPORT_FIX);
 }
 
 /**
  * The lie factor compares categories with each other; the legend makes an absolute claim too ("one glyph =
  * 50 rides"). A chart drawn at twice the stated unit throughout has lie factor 1 but still misleads.
  */
-function checkAbsoluteScale(file: ChartSvgFile, marks: MarkMeasurement[], problems: string[], high: number): void {
+function checkAbsoluteScale(file: ChartSvgFile, marks: MarkMeasurement[], problems: ProblemList, high: number): void {
   const summary = file.summary;
   const reading = file.reading;
   const tolerance = high - 1;
@@ -762,19 +910,34 @@ function checkAbsoluteScale(file: ChartSvgFile, marks: MarkMeasurement[], proble
     if ((reading === 'count' || reading === 'length') && m.glyphs !== undefined && m.unitInkMm2 !== undefined) {
       const shown = m.glyphs * unit;
       if (relDiff(shown, m.value) > tolerance + 1e-9) {
-        problems.push(`"${m.label}" is drawn as ${num(m.glyphs)} glyphs, which the key reads as ${num(shown)}${unitName} at ${num(unit)} per glyph, but its value is ${num(m.value)}.`);
+        problems.add(
+          'key-unit-mismatch',
+          `"${m.label}" is drawn as ${num(m.glyphs)} glyphs, which the key reads as ${num(shown)}${unitName} at ${num(unit)} per glyph, but its value is ${num(m.value)}.`,
+          `Make the key state the amount one glyph is drawn for, or draw "${m.label}" at the key's ${num(unit)} per glyph.`,
+          m.label,
+        );
         return;
       }
     } else if (reading === 'fill' && m.fillShare !== undefined) {
       const expected = m.value / unit;
       if (relDiff(m.fillShare, expected) > tolerance + 1e-9) {
-        problems.push(`"${m.label}" is filled to ${num(m.fillShare * 100)}% of its glyph's ink, but its value ${num(m.value)} of ${num(unit)} is ${num(expected * 100)}%.`);
+        problems.add(
+          'key-unit-mismatch',
+          `"${m.label}" is filled to ${num(m.fillShare * 100)}% of its glyph's ink, but its value ${num(m.value)} of ${num(unit)} is ${num(expected * 100)}%.`,
+          `Fill "${m.label}" to ${num(expected * 100)}% of its glyph's ink, or state the whole it is a share of.`,
+          m.label,
+        );
         return;
       }
     } else if (reading === 'area') {
       const shown = m.inkMm2 * unit;
       if (relDiff(shown, m.value) > tolerance + 1e-9) {
-        problems.push(`"${m.label}" carries ${num(m.inkMm2)} mm² of ink, which the file's scale (${num(unit)} per mm²) reads as ${num(shown)}, but its value is ${num(m.value)}.`);
+        problems.add(
+          'key-unit-mismatch',
+          `"${m.label}" carries ${num(m.inkMm2)} mm² of ink, which the file's scale (${num(unit)} per mm²) reads as ${num(shown)}, but its value is ${num(m.value)}.`,
+          `Scale "${m.label}" to the chart's stated ink per unit of value, or state the scale it is drawn at.`,
+          m.label,
+        );
         return;
       }
     }
@@ -785,7 +948,7 @@ function checkAbsoluteScale(file: ChartSvgFile, marks: MarkMeasurement[], proble
  * A scale chart's key ("this much ink = 250 trees") must follow the marks' own ink per unit of value, or a
  * reader comparing a mark with the key misjudges it by the same factor. Scale-free: marks against key.
  */
-function checkScaleKeys(file: ChartSvgFile, legendInks: Ink[], marks: MarkMeasurement[], problems: string[], high: number): void {
+function checkScaleKeys(file: ChartSvgFile, legendInks: Ink[], marks: MarkMeasurement[], problems: ProblemList, high: number): void {
   const perValue = marks.filter((m) => m.value > 0 && m.inkMm2 > 0).map((m) => m.inkMm2 / m.value);
   if (!perValue.length) return;
   const chart = median(perValue);
@@ -794,9 +957,11 @@ function checkScaleKeys(file: ChartSvgFile, legendInks: Ink[], marks: MarkMeasur
     if (key.unitValue === null || !(ink.areaMm2 > 0)) return;
     const ratio = ink.areaMm2 / key.unitValue / chart;
     if (Math.abs(ratio - 1) > high - 1 + 1e-9) {
-      problems.push(
+      problems.add(
+        'key-glyph-size',
         `The key glyph for ${num(key.unitValue)} carries ${num(ink.areaMm2)} mm² of ink, ${num(ratio)}x what the marks carry for that value; ` +
           'a reader comparing a mark with the key would misjudge it.',
+        `Draw the key glyph for ${num(key.unitValue)} with the ink per unit of value that the marks use.`,
       );
     }
   });
@@ -810,7 +975,8 @@ function findSmallestGlyph(
   let best: VerifyReport['smallestGlyph'] = null;
   const consider = (mark: ChartSvgMark, ink: Ink) => {
     if (!(ink.areaMm2 > 0)) return;
-    if (!best || ink.areaMm2 < best.inkMm2) best = { markId: mark.id, label: mark.label, inkMm2: ink.areaMm2, perimeterMm: ink.perimeterMm };
+    // Copies of one glyph agree to rounding noise: only a real difference moves the choice off the first.
+    if (!best || ink.areaMm2 < best.inkMm2 * (1 - 1e-9)) best = { markId: mark.id, label: mark.label, inkMm2: ink.areaMm2, perimeterMm: ink.perimeterMm };
   };
   for (const mi of markInks) {
     if (reading === 'area') consider(mi.mark, mi.ink);
@@ -820,6 +986,25 @@ function findSmallestGlyph(
       const perimeter = whole.reduce((a, p) => a + p.ink.perimeterMm, 0);
       if (area > 0) consider(mi.mark, { region: [], areaMm2: area, perimeterMm: perimeter, boxMm: null });
     } else for (const p of fulls(mi)) consider(mi.mark, p.ink);
+  }
+  return best;
+}
+
+/** The smallest piece of ink drawn: every full and partial glyph, or each mark's whole glyph in scale and fill charts. */
+function findSmallestInk(markInks: { mark: ChartSvgMark; ink: Ink; pieces: PieceInk[] }[], reading: Reading): VerifyReport['smallestInk'] {
+  let best: VerifyReport['smallestInk'] = null;
+  const consider = (mark: ChartSvgMark, areaMm2: number, perimeterMm: number, part: 'full' | 'partial' | 'glyph') => {
+    if (!(areaMm2 > 0)) return;
+    if (!best || areaMm2 < best.inkMm2 * (1 - 1e-9)) best = { markId: mark.id, label: mark.label, inkMm2: areaMm2, perimeterMm, part };
+  };
+  for (const mi of markInks) {
+    if (reading === 'area') consider(mi.mark, mi.ink.areaMm2, mi.ink.perimeterMm, 'glyph');
+    else if (reading === 'fill') {
+      const whole = mi.pieces.filter((p) => p.piece.part === 'filled' || p.piece.part === 'rest');
+      consider(mi.mark, whole.reduce((a, p) => a + p.ink.areaMm2, 0), whole.reduce((a, p) => a + p.ink.perimeterMm, 0), 'glyph');
+    } else {
+      for (const p of mi.pieces) if (p.piece.part === 'full' || p.piece.part === 'partial') consider(mi.mark, p.ink.areaMm2, p.ink.perimeterMm, p.piece.part);
+    }
   }
   return best;
 }

@@ -1,6 +1,6 @@
 // Public door of chart layout: layoutChart (spec → scene), the unit chooser and the pieces worth reusing.
 export { layoutChart, READING_OF_MODE } from './layoutChart';
-export { chooseUnit, assertGlyphBudget, READABLE_MANTISSAS } from './chooseUnit';
+export { chooseUnit, assertGlyphBudget, withGlyphBudget, READABLE_MANTISSAS } from './chooseUnit';
 export type { ChooseUnitOptions, GlyphBudgetOptions, RoundingError, UnitChoice } from './chooseUnit';
 export { resolveGlyphs, type ResolvedGlyph, type ResolvedGlyphs } from './resolveGlyphs';
 export { createGlyphBook, mmPerGlyphUnit, type ChartShape, type GlyphBook } from './glyphBook';

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { alphaCoverage, coverageMm2, isolateEachMark, isolateMark, markCoverages, renderSvgPixels } from '../../../main/raster';
+import { alphaCoverage, coverageMm2, isolateEachMark, isolateMark, markCoverages, markCoveragesByRegion, renderSvgPixels } from '../../../main/raster';
 import { caught } from '../../helpers/errors';
 import { hasRsvg, resvgAlphaSum, rsvgAlphaSum, rsvgMarkCoverages } from '../../helpers/independent';
 import { mmPage, SVG_NS as NS } from '../../helpers/svgPage';
@@ -122,5 +122,49 @@ describe('isolateMark', () => {
     const nested = mmPage('<g id="outer"><g id="inner"><rect width="1" height="1"/></g></g>');
     expect(caught(() => isolateMark(nested, 'outer', ['outer', 'inner'])).message).toMatch(/inside mark "outer"/);
     expect(caught(() => isolateMark(mmPage('<g id="x">'), 'x', ['x'])).code).toBe('svg-malformed');
+  });
+});
+
+describe('markCoveragesByRegion', () => {
+  it('gives each mark exactly the alpha sum of rendering it alone, with fewer renders (resvg per mark as reference)', async () => {
+    const { renderChart } = await import('../../../shared-core/pipeline/index');
+    const { chartDoc } = await import('../../helpers/chartDoc');
+    const { marksOnlySvg } = await import('../../../main/export/index');
+    const doc = chartDoc({
+      data: [
+        { label: 'Alder Street', value: 30 },
+        { label: 'Birch Road', value: 55 },
+        { label: 'Cedar Lane', value: 12.5 },
+      ],
+      layout: { bleedMm: 3 },
+    });
+    const { svg, report } = renderChart(doc);
+    const marksOnly = marksOnlySvg(svg);
+    const ids = report.marks.map((m) => m.id);
+    // Reference: resvg renders each mark alone on the whole page (every other mark hidden).
+    const alone = markCoverages(marksOnly, ids, { ppi: 150 });
+    const shared = markCoveragesByRegion(marksOnly, report.marks.map((m) => ({ id: m.id, boxMm: m.boxMm })), { ppi: 150, bleedMm: report.page.bleedMm });
+    expect(shared.map((c) => c.id)).toEqual(ids);
+    shared.forEach((c, i) => {
+      expect(c.px).toBeGreaterThan(100);
+      // The same pixels, so the same integer alpha sum: equal to the last bit.
+      expect(c.px).toBe(alone[i].px);
+    });
+  });
+
+  it('renders overlapping marks in separate layers, so each keeps its own ink (pi r^2 and w x h)', () => {
+    const shared = markCoveragesByRegion(
+      TWO_MARKS,
+      [
+        { id: 'm-circle', boxMm: { x: 25, y: 20, width: 10, height: 10 } },
+        { id: 'm-rect', boxMm: { x: 32, y: 15, width: 10, height: 20 } },
+      ],
+      { ppi: 300, bleedMm: 0 },
+    );
+    const alone = markCoverages(TWO_MARKS, ['m-circle', 'm-rect'], { ppi: 300 });
+    expect(shared[0].px).toBe(alone[0].px);
+    expect(shared[1].px).toBe(alone[1].px);
+    expect(relativeError(shared[0].mm2, CIRCLE_MM2)).toBeLessThan(0.005);
+    expect(relativeError(shared[1].mm2, RECT_MM2)).toBeLessThan(0.005);
   });
 });

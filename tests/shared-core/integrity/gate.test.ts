@@ -48,7 +48,10 @@ describe('gate messages', () => {
     const result = gate(report);
     expect(result.pass).toBe(false);
     // Effects: drawn +300% against data +100%, so 3.00.
-    expect(result.reason).toBe('Station B is drawn 4.00x as large as Station A but its value is only 2.00x (lie factor 3.00, allowed 0.95–1.05).');
+    expect(result.reason).toBe(
+      'Station B is drawn 4.00x as large as Station A but its value is only 2.00x (lie factor 3.00, allowed 0.95–1.05): ' +
+        '(4.00 − 1) / (2.00 − 1) = 3.00, the growth drawn over the growth in the data.',
+    );
     expect(result.worst?.label).toBe('Station B');
   });
 
