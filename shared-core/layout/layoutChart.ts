@@ -5,11 +5,13 @@ import type { ChartSpec } from '../document';
 import type { Warning } from '../errors';
 import type { ChartSummary, Reading, Scene, SceneText } from '../scene';
 import { resolveLabelCollisions } from './collisions';
+import { MIN_GLYPH_MM } from './fitSize';
+import { noRoomError } from './noRoom';
 import { fillLayout } from './fillLayout';
 import { createGlyphBook } from './glyphBook';
 import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, wrapText } from './labels';
 import type { BoxMm, ChartRow, LayoutContext, ModeResult } from './layoutContext';
-import { categoryColor, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
+import { categoryColor, checkDistinctColors, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
 import { repeatLayout } from './repeatLayout';
 import { resolveGlyphs } from './resolveGlyphs';
 import { scaleLayout } from './scaleLayout';
@@ -73,12 +75,20 @@ function pageFrame(spec: ChartSpec): Frame {
     });
     bottom -= m.boxHeightMm + (count - 1) * m.lineHeightMm + BLOCK_GAP_MM;
   }
+  // Title and source must leave room for at least a row of legible glyphs between them, or they overlap.
+  if (bottom - top < MIN_GLYPH_MM) {
+    throw noRoomError(spec, {
+      what: 'The title, the source and the chart between them',
+      neededMm: { width, height: spec.page.heightMm - margins.top - margins.bottom + (top - bottom) + MIN_GLYPH_MM },
+      roomMm: { width, height: spec.page.heightMm - margins.top - margins.bottom },
+    });
+  }
   return { box: { x, y: top, width, height: Math.max(0, bottom - top) }, texts };
 }
 
 function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['rows'], warnings: Warning[]): ChartRow[] {
   const warned = new Set<string>();
-  return spec.data.map((row, i) => {
+  const out = spec.data.map((row, i) => {
     const given = categoryColor(i, row.color, spec.layout.colors);
     // One warning per colour, however many categories share it.
     const color = opaqueColor(given, warned.has(given) ? undefined : warnings, `"${row.label}"`);
@@ -94,6 +104,9 @@ function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['ro
       restColor: mixWithWhite(color, REST_WHITE_SHARE),
     };
   });
+  const sharedGrid = spec.encoding.mode === 'repeat' && spec.encoding.arrangement === 'shared-grid';
+  checkDistinctColors(out.map((r) => r.label), out.map((r) => r.color), sharedGrid, warnings);
+  return out;
 }
 
 function runMode(ctx: LayoutContext): ModeResult {

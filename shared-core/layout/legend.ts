@@ -11,6 +11,7 @@ import type { ResolvedGlyph } from './resolveGlyphs';
 /** Space between the marks (or their labels) and the legend row. */
 export const LEGEND_GAP_MM = 4;
 const KEY_TEXT_GAP_MM = 2;
+const KEY_GLYPH_GAP_MM = 1.5;
 
 export interface LegendPart {
   texts: SceneText[];
@@ -45,27 +46,30 @@ export function singularOf(unitName: string): string {
   return words.join(' ');
 }
 
-/** Key glyph (a full glyph at the chart's unit ink) and its sentence, in a row starting at topMm. */
-export function placeUnitLegend(book: GlyphBook, shape: ChartShape, box: BoxMm, topMm: number, text: string, unitValue: number, unitName: string): LegendPart {
+/**
+ * Key glyphs (full glyphs at the chart's unit ink, one per distinct glyph drawn, so a row drawn with its own
+ * glyph is keyed too) and the sentence, in a row starting at topMm; glyphs and sentence share one centre line.
+ */
+export function placeUnitLegend(book: GlyphBook, shapes: ChartShape | readonly ChartShape[], box: BoxMm, topMm: number, text: string, unitValue: number, unitName: string): LegendPart {
+  const list = Array.isArray(shapes) ? (shapes as readonly ChartShape[]) : [shapes as ChartShape];
   const m = lineMetrics(TEXT_SIZE_MM.legend);
-  const rowHeightMm = Math.max(shape.heightMm, m.boxHeightMm);
-  const keyYMm = topMm + (rowHeightMm - shape.heightMm) / 2;
-  const key: SceneLegendKey = {
-    glyph: shape.glyph.name,
-    region: book.full(shape, box.x, keyYMm).region,
-    color: INK_COLORS.key,
-    unitValue,
-    unitName,
-  };
+  const rowHeightMm = Math.max(...list.map((s) => s.heightMm), m.boxHeightMm);
+  const legendKeys: SceneLegendKey[] = [];
+  let x = box.x;
+  list.forEach((shape, i) => {
+    const keyYMm = topMm + (rowHeightMm - shape.heightMm) / 2;
+    legendKeys.push({ glyph: shape.glyph.name, region: book.full(shape, x, keyYMm).region, color: INK_COLORS.key, unitValue, unitName });
+    x += shape.widthMm + (i < list.length - 1 ? KEY_GLYPH_GAP_MM : 0);
+  });
   const label = makeText({
     role: 'legend',
     text,
-    xMm: box.x + shape.widthMm + KEY_TEXT_GAP_MM,
+    xMm: x + KEY_TEXT_GAP_MM,
     yMm: topMm + rowHeightMm / 2 + m.capHeightMm / 2,
     sizeMm: TEXT_SIZE_MM.legend,
     color: INK_COLORS.muted,
   });
-  return { texts: [label], legendKeys: [key], bottomMm: topMm + rowHeightMm };
+  return { texts: [label], legendKeys, bottomMm: topMm + rowHeightMm };
 }
 
 /** Largest readable amount (1, 2, 2.5 or 5 x 10^k) not above x. */

@@ -5,10 +5,10 @@ import type { CutDirection } from '../glyph';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
 import { chooseGlyphSize } from './fitSize';
 import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, textWidthMm, TEXT_SIZE_MM } from './labels';
-import { sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
-import { resolveUnit, type GlyphCount } from './resolveUnit';
+import { resolveUnit, withFittingUnit, type GlyphCount } from './resolveUnit';
 import type { ResolvedGlyph } from './resolveGlyphs';
 
 /** Largest glyph the layout picks by itself (common practice for icon arrays, no source). */
@@ -60,10 +60,12 @@ function slotsOf(c: GlyphCount): number {
 
 export function repeatLayout(ctx: LayoutContext): ModeResult {
   const shared = (ctx.spec.encoding as RepeatEncoding).arrangement === 'shared-grid';
-  const unit = resolveUnit(ctx.spec, { maxGlyphsPerCategory: shared ? 100 : 50, sharedGrid: shared });
-  ctx.warnings.push(...unit.warnings);
-  const result = shared ? sharedGrid(ctx, unit.counts, unit.unit) : perCategory(ctx, unit.counts, unit.unit);
-  return { ...result, unitChoice: unit.choice };
+  return withFittingUnit(ctx, { maxGlyphsPerCategory: shared ? 100 : 50, sharedGrid: shared }, (opts) => {
+    const unit = resolveUnit(ctx.spec, opts);
+    ctx.warnings.push(...unit.warnings);
+    const result = shared ? sharedGrid(ctx, unit.counts, unit.unit) : perCategory(ctx, unit.counts, unit.unit);
+    return { ...result, unitChoice: unit.choice };
+  });
 }
 
 function legendSentence(ctx: LayoutContext, unit: number): string {
@@ -87,7 +89,8 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
   const slots = counts.map(slotsOf);
   const mostSlots = Math.max(1, ...slots);
   const glyphs = [...new Set(rows.map((r) => r.glyph))];
-  const keyFactor = sizePerRootInk([ctx.chartGlyph]);
+  const keys = keyGlyphs(ctx);
+  const keyFactor = sizePerRootInk(keys);
   const firstLineMm = Math.max(layout.labels ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
 
 
@@ -101,7 +104,7 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
     const bandMm = rowsPer.map((r, i) =>
       Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
     );
-    const bandGapMm = g.gapMm + 2;
+    const bandGapMm = g.gapMm + 1;
     const keyHeightMm = Math.sqrt(g.inkMm2) * keyFactor.height;
     const heightMm = bandMm.reduce((a, b) => a + b, 0) + (rows.length - 1) * bandGapMm + (layout.legend ? unitLegendHeightMm(keyHeightMm) : 0);
     return { ...g, columns, offsetMm, rowsPer, bandMm, bandGapMm, heightMm };
@@ -110,13 +113,21 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
     const p = plan(sizeMm);
     return gridWidthMm(p.columns, p) <= gridRoomMm + EPS_MM && p.heightMm <= box.height + EPS_MM;
   };
-  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph rows'));
+  const explain = (smallestMm: number) => {
+    const q = plan(smallestMm);
+    return { neededMm: { width: labelColMm + gridWidthMm(q.columns, q) + valueColMm, height: q.heightMm }, roomMm: { width: box.width, height: box.height } };
+  };
+  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph rows and their labels', explain));
   const shapeFor = (g: ResolvedGlyph) => book.shape(g, p.inkMm2);
   const fullWidthMm = gridWidthMm(p.columns, p);
 
   const marks: SceneMark[] = [];
   const texts: SceneText[] = [];
-  let topMm = box.y;
+  // Use the page: spare height opens the gaps between categories (up to half a band each) and centres the rest.
+  const spareHMm = Math.max(0, box.height - p.heightMm);
+  const bandGrowMm = rows.length > 1 ? Math.min(spareHMm / rows.length, Math.min(...p.bandMm) / 2) : 0;
+  const bandGapMm = p.bandGapMm + bandGrowMm;
+  let topMm = box.y + (spareHMm - bandGrowMm * (rows.length - 1)) / 2;
   rows.forEach((row, i) => {
     const count = counts[i];
     const shape = shapeFor(row.glyph);
@@ -140,13 +151,13 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
       const endMm = oneRow ? gridXMm + gridWidthMm(Math.max(slots[i], 0), p) : gridXMm + fullWidthMm;
       texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
     }
-    topMm += p.bandMm[i] + p.bandGapMm;
+    topMm += p.bandMm[i] + bandGapMm;
   });
 
   const legendKeys: SceneLegendKey[] = [];
   if (layout.legend) {
-    const chartBottomMm = topMm - p.bandGapMm;
-    const legend = placeUnitLegend(book, book.shape(ctx.chartGlyph, p.inkMm2), box, chartBottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
+    const chartBottomMm = topMm - bandGapMm;
+    const legend = placeUnitLegend(book, keys.map((g) => book.shape(g, p.inkMm2)), box, chartBottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }
@@ -199,7 +210,11 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
     const p = plan(sizeMm);
     return gridWidthMm(p.columns, p) <= p.roomMm + EPS_MM && p.heightMm <= box.height + EPS_MM;
   };
-  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph grid'));
+  const explain = (smallestMm: number) => {
+    const q = plan(smallestMm);
+    return { neededMm: { width: box.width - q.roomMm + gridWidthMm(q.columns, q), height: q.heightMm }, roomMm: { width: box.width, height: box.height } };
+  };
+  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph grid and its key', explain));
   const shape = book.shape(glyph, p.inkMm2);
 
   const pieces: SceneGlyph[][] = rows.map(() => []);
