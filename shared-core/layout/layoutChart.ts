@@ -7,6 +7,7 @@ import type { ChartSummary, Reading, Scene, SceneText } from '../scene';
 import { resolveLabelCollisions } from './collisions';
 import { MIN_GLYPH_MM } from './fitSize';
 import { noRoomError } from './noRoom';
+import { sliverWarnings } from './slivers';
 import { fillLayout } from './fillLayout';
 import { createGlyphBook } from './glyphBook';
 import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, wrapText } from './labels';
@@ -139,6 +140,9 @@ export function layoutChart(spec: ChartSpec): Scene {
   const book = createGlyphBook();
   const ctx: LayoutContext = { spec, rows, chartGlyph: glyphs.chart, box: frame.box, book, warnings };
   const result = runMode(ctx);
+  // Slivers only where one category owns each partial glyph; a shared grid splits glyphs between categories.
+  const sharedGrid = mode === 'repeat' && spec.encoding.arrangement === 'shared-grid';
+  if ((mode === 'repeat' && !sharedGrid) || mode === 'stack') warnings.push(...sliverWarnings(spec, result.marks, result.unit));
 
   const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] });
   warnings.push(...resolved.warnings);
