@@ -12,7 +12,7 @@ import { fillLayout } from './fillLayout';
 import { createGlyphBook } from './glyphBook';
 import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, wrapText } from './labels';
 import type { BoxMm, ChartRow, LayoutContext, ModeResult } from './layoutContext';
-import { categoryColor, checkDistinctColors, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
+import { categoryColor, checkDistinctColors, contrastRatio, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
 import { repeatLayout } from './repeatLayout';
 import { resolveGlyphs } from './resolveGlyphs';
 import { scaleLayout } from './scaleLayout';
@@ -177,6 +177,14 @@ export function layoutChart(spec: ChartSpec): Scene {
     shapes: book.shapes(),
   };
   if (result.unitChoice) scene.unitChoice = result.unitChoice;
+  if (spec.layout.background) {
+    // Painted opaque to the bleed edge; verification then reads marks against it as the paper colour.
+    scene.background = opaqueColor(spec.layout.background, scene.warnings, 'The page background');
+    const ratio = contrastRatio(scene.background, INK_COLORS.text);
+    if (ratio < 4.5) {
+      scene.warnings.push({ code: 'background-contrast', message: `Text on the ${scene.background} background has a contrast of ${ratio.toFixed(1)}:1, under the 4.5:1 WCAG 2.1 asks of body text; choose a lighter background.` });
+    }
+  }
   return scene;
 }
 

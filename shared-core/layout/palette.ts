@@ -102,3 +102,15 @@ export function checkDistinctColors(labels: readonly string[], colors: readonly 
   }
   throw new TallyError('data-invalid', `In a shared grid colour alone tells categories apart, but ${pair}. Give each category its own colour.`);
 }
+
+/** WCAG 2.1 contrast ratio of two opaque #rrggbb colours: (L1 + 0.05) / (L2 + 0.05) with sRGB relative luminance. */
+export function contrastRatio(a: string, b: string): number {
+  const lum = (hex: string) => {
+    const [r, g, bl] = [0, 2, 4]
+      .map((i) => parseInt(hexDigits(hex.toLowerCase()).slice(i, i + 2), 16) / 255)
+      .map((c) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
+    return 0.2126 * r + 0.7152 * g + 0.0722 * bl;
+  };
+  const [hi, lo] = [lum(a), lum(b)].sort((x, y) => y - x);
+  return (hi + 0.05) / (lo + 0.05);
+}
