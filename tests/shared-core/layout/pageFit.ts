@@ -61,7 +61,7 @@ export function drawnBoxes(scene: Scene): Drawn[] {
 /**
  * Problems found, as sentences (empty when the chart fits): anything outside the content area, and any two
  * drawn things whose boxes overlap. A rule under the stacks may touch the glyphs it carries, so lines are
- * checked against texts only; nested scale-legend keys are one key drawn as a group.
+ * checked against texts only.
  */
 export function pageFitProblems(scene: Scene, spec: ChartSpec): string[] {
   const m = spec.layout.margins;
@@ -76,14 +76,12 @@ export function pageFitProblems(scene: Scene, spec: ChartSpec): string[] {
   }
   const isLine = (d: Drawn) => d.what.endsWith(' line');
   const isText = (d: Drawn) => d.what.includes(' text "');
-  const isKey = (d: Drawn) => d.what.startsWith('legend key');
   for (let i = 0; i < drawn.length; i++) {
     for (let j = i + 1; j < drawn.length; j++) {
       const a = drawn[i];
       const b = drawn[j];
       if ((isLine(a) && !isText(b)) || (isLine(b) && !isText(a))) continue;
       if (a.splitPiece && b.splitPiece) continue;
-      if (isKey(a) && isKey(b) && scene.summary.mode === 'scale') continue;
       if (overlap(a.box, b.box)) problems.push(`${a.what} overlaps ${b.what}`);
       if (problems.length > 20) return problems;
     }
