@@ -15,7 +15,9 @@ export type ProblemCode =
   | 'gate-refused'
   | 'raster-invalid'
   | 'io-error'
-  | 'usage';
+  | 'usage'
+  /** The chart cannot fit its page at a legible size: refused before anything is written. */
+  | 'layout-no-room';
 
 /** A failure with a code and a sentence a designer understands. Thrown inside the core, caught at the edges. */
 export class TallyError extends Error {

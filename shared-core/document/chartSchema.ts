@@ -88,6 +88,8 @@ export interface LayoutOptions {
   legend: boolean;
   margins: MarginsMm;
   bleedMm: number;
+  /** Page background: an opaque CSS hex colour painted to the bleed edge, or "none" (absent) for a transparent page. */
+  background?: string;
 }
 
 export interface PageMm {
@@ -267,6 +269,7 @@ const layoutSchema = z.strictObject(
     legend: flag().default(true),
     margins: marginsSchema.default(DEFAULT_MARGIN_MM),
     bleedMm: nonNegativeNumber().default(0),
+    background: z.union([z.literal('none'), hexColor()], { error: expecting('"none" or a CSS hex colour such as "#fdf6e3"') }).optional(),
   },
   { error: expecting('an object of layout options') },
 );
@@ -453,6 +456,7 @@ export function parseChart(json: unknown): ChartSpec {
   };
   if (d.layout.glyphSizeMm !== undefined) layout.glyphSizeMm = d.layout.glyphSizeMm;
   if (d.layout.colors !== undefined) layout.colors = [...d.layout.colors];
+  if (d.layout.background !== undefined && d.layout.background !== 'none') layout.background = d.layout.background;
 
   const perMm = PAGE_UNIT_MM[d.page.unit];
   const spec: ChartSpec = {

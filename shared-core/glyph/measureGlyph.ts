@@ -51,6 +51,8 @@ export function summarise(region: Region, viewBox: Box | null, shapeCount: numbe
   if (!(area > 0)) {
     warnings.push({ code: 'empty-glyph', message: 'The glyph paints no ink (zero area): it cannot stand for a quantity.' });
   }
+  const outside = inkOutsideViewBox(bbox, viewBox);
+  if (outside) warnings.push(outside);
   return {
     region,
     areaUnits2: area,
@@ -107,4 +109,36 @@ function estimateExtent(shapes: PaintedShape[], viewBox: Box | null): number {
   }
   const e = Math.max(maxX - minX, maxY - minY);
   return Number.isFinite(e) && e > 0 ? e : 1;
+}
+
+function units(n: number): string {
+  return String(Number(n.toPrecision(4)));
+}
+
+/**
+ * A glyph whose ink runs past its viewBox is cut off wherever the SVG is shown in its own box (a browser, an
+ * icon picker), while Tallyglyph measures and draws all of its ink: the designer should know the two differ.
+ * Excursions under a thousandth of the box (under a pixel with the glyph shown 1000 px wide: stroke joins,
+ * flattening) are ignored; four bundled glyphs reach 0.05 units past a 256-unit box that way.
+ */
+export function inkOutsideViewBox(bbox: Box, viewBox: Box | null): Warning | null {
+  if (!viewBox || !(bbox.width > 0) || !(bbox.height > 0)) return null;
+  const slack = 1e-3 * Math.max(viewBox.width, viewBox.height);
+  const sides: string[] = [];
+  const left = viewBox.x - bbox.x;
+  const top = viewBox.y - bbox.y;
+  const right = bbox.x + bbox.width - (viewBox.x + viewBox.width);
+  const bottom = bbox.y + bbox.height - (viewBox.y + viewBox.height);
+  if (left > slack) sides.push(`${units(left)} units past the left edge`);
+  if (right > slack) sides.push(`${units(right)} units past the right edge`);
+  if (top > slack) sides.push(`${units(top)} units above the top`);
+  if (bottom > slack) sides.push(`${units(bottom)} units below the bottom`);
+  if (sides.length === 0) return null;
+  const vb = `${units(viewBox.x)} ${units(viewBox.y)} ${units(viewBox.width)} ${units(viewBox.height)}`;
+  return {
+    code: 'ink-outside-viewbox',
+    message:
+      `The ink reaches outside the glyph's viewBox (${vb}): ${sides.join(', ')}. Shown in its own box that part is cut off, ` +
+      'but charts measure and draw all of it; redraw the glyph inside its box or widen the viewBox.',
+  };
 }

@@ -15,9 +15,17 @@ export interface PreflightInput {
   contentBoxMm: { x: number; y: number; width: number; height: number };
   /** True when a background (or other artwork) reaches the bleed edge. */
   backgroundCoversBleed: boolean;
+  /** Partial glyphs (remainders cut by ink): whose, the share of a glyph's ink kept, the ink box's shorter side. */
+  partials?: PartialGlyph[];
 }
 
-export type PreflightCode = 'stroke-thin' | 'text-small' | 'content-outside-page' | 'content-outside-safe-area' | 'bleed-unused';
+export interface PartialGlyph {
+  owner: string;
+  share: number;
+  shortSideMm: number;
+}
+
+export type PreflightCode = 'stroke-thin' | 'text-small' | 'content-outside-page' | 'content-outside-safe-area' | 'bleed-unused' | 'sliver';
 
 export interface Finding {
   code: PreflightCode;
@@ -146,6 +154,8 @@ export function preflight(input: PreflightInput, opts: PreflightOptions = {}): F
     }
   }
 
+  for (const f of sliverFindings(input.partials ?? [])) findings.push(f);
+
   if (bleedMm > 0 && !input.backgroundCoversBleed) {
     add(
       'bleed-unused',
@@ -154,4 +164,28 @@ export function preflight(input: PreflightInput, opts: PreflightOptions = {}): F
   }
 
   return findings;
+}
+
+/** A partial glyph holding less than this share of a glyph's ink reads as a dash, not as the glyph (common practice, no source). */
+export const SLIVER_SHARE = 0.1;
+
+/**
+ * Slivers: partial glyphs so small a reader sees a 1-2 mm dash rather than a piece of the glyph. The cut stays
+ * ink-true (the share is right); the finding names the category and its share so the designer can pick another unit.
+ */
+export function sliverFindings(partials: readonly PartialGlyph[]): Finding[] {
+  const out: Finding[] = [];
+  for (const p of partials) {
+    // A share of 0.1 computed as 0.0999999999 (4.1 - 4 in binary floating point) is a tenth, not a sliver.
+    if (!(p.share > 0) || p.share >= SLIVER_SHARE - 1e-9) continue;
+    const pct = String(Number((p.share * 100).toPrecision(2)));
+    out.push({
+      code: 'sliver',
+      message: `${p.owner}: the last glyph holds only ${pct}% of a glyph's ink, a ${mm(p.shortSideMm)} mm sliver that may not read as the glyph (common practice).`,
+      severity: 'warning',
+      basis: 'common practice',
+      owner: p.owner,
+    });
+  }
+  return out;
 }

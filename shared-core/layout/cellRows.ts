@@ -36,6 +36,9 @@ export interface CellRowsPlan {
   bottomMm: number;
   /** Each item's label broken into lines (empty without labels). */
   labelLines: string[][];
+  /** Room the rows and legend take at this size, before spreading over the box. */
+  widthMm: number;
+  heightMm: number;
 }
 
 export const CELL_GAP_MM = 4;
@@ -110,22 +113,39 @@ export function planCellRows(items: readonly CellItem[], box: BoxMm, opts: CellR
   }
 
   const size = fit.sizeMm;
-  const { rows } = measure(size, columns);
+  const { rows, widthMm, heightMm } = measure(size, columns);
   const centreXMm = new Array<number>(n).fill(0);
   const baselineYMm = new Array<number>(n).fill(0);
-  let topMm = box.y;
-  for (const row of rows) {
-    let x = box.x;
+  // Use the page: columns of equal pitch across the whole width when every cell fits one (so the items
+  // of every row line up), else each row's spare width spread between its cells; spare height opens
+  // the row gaps up to a row's height each and centres what is left.
+  const pitchMm = box.width / Math.max(1, columns);
+  const equalColumns = items.every((_, i) => cellW(i, size) <= pitchMm - CELL_GAP_MM + EPS_MM);
+  const rowHeights = rows.map((row) => aboveMm + Math.max(0, ...row.map((i) => size * items[i].heightPerSize)) + belowOf(row));
+  const spareHMm = Math.max(0, box.height - heightMm);
+  const gapGrowMm = rows.length > 1 ? Math.min(spareHMm / rows.length, Math.min(...rowHeights) * 0.5) : 0;
+  let topMm = box.y + (spareHMm - gapGrowMm * (rows.length - 1)) / 2;
+  rows.forEach((row, r) => {
     let h = 0;
     for (const i of row) h = Math.max(h, size * items[i].heightPerSize);
     const baseline = topMm + aboveMm + h;
-    for (const i of row) {
-      const w = cellW(i, size);
-      centreXMm[i] = x + w / 2;
-      baselineYMm[i] = baseline;
-      x += w + CELL_GAP_MM;
+    if (equalColumns) {
+      row.forEach((i, k) => {
+        centreXMm[i] = box.x + (k + 0.5) * pitchMm;
+        baselineYMm[i] = baseline;
+      });
+    } else {
+      const natural = row.reduce((a, i) => a + cellW(i, size), 0) + (row.length - 1) * CELL_GAP_MM;
+      const spare = Math.max(0, box.width - natural) / row.length;
+      let x = box.x + spare / 2;
+      for (const i of row) {
+        const w = cellW(i, size);
+        centreXMm[i] = x + w / 2;
+        baselineYMm[i] = baseline;
+        x += w + CELL_GAP_MM + spare;
+      }
     }
-    topMm = baseline + belowOf(row) + ROW_GAP_MM;
-  }
-  return { size, fits: fit.fits, rows, centreXMm, baselineYMm, bottomMm: topMm - ROW_GAP_MM, labelLines: labelText };
+    topMm = baseline + belowOf(row) + ROW_GAP_MM + (r < rows.length - 1 ? gapGrowMm : 0);
+  });
+  return { size, fits: fit.fits, rows, centreXMm, baselineYMm, bottomMm: topMm - ROW_GAP_MM, labelLines: labelText, widthMm, heightMm };
 }

@@ -75,6 +75,24 @@ function* readableUnitsFrom(from: number): Generator<number> {
   }
 }
 
+/** The `count` readable units next to `from` (exclusive), going up or down. */
+export function nextReadableUnits(from: number, count: number, way: 'up' | 'down'): number[] {
+  const out: number[] = [];
+  if (way === 'up') {
+    for (const u of readableUnitsFrom(from)) {
+      if (u > from * (1 + 1e-12)) out.push(u);
+      if (out.length >= count) break;
+    }
+    return out;
+  }
+  const below: number[] = [];
+  for (const u of readableUnitsFrom(from / 10 ** Math.ceil(count / READABLE_MANTISSAS.length + 1))) {
+    if (u >= from * (1 - 1e-12)) break;
+    below.push(u);
+  }
+  return below.reverse().slice(0, count);
+}
+
 function formatAmount(value: number): string {
   return value.toLocaleString('en-US', { maximumSignificantDigits: 12 });
 }

@@ -4,10 +4,11 @@
 import type { FillEncoding } from '../document';
 import type { CutDirection } from '../glyph';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
+import { noRoomError } from './noRoom';
 import { planCellRows, TEXT_GAP_MM, type CellItem } from './cellRows';
 import { MIN_GLYPH_MM } from './fitSize';
 import { formatShare, formatValue, lineMetrics, makeLines, makeText, TEXT_SIZE_MM } from './labels';
-import { overflowWarning, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
 
@@ -41,7 +42,8 @@ export function fillLayout(ctx: LayoutContext): ModeResult {
   const direction = fillDirection(layout.direction);
   const glyphs = [...new Set(rows.map((r) => r.glyph))];
   const f = sizePerRootInk(glyphs);
-  const keyFactor = sizePerRootInk([ctx.chartGlyph]);
+  const keys = keyGlyphs(ctx);
+  const keyFactor = sizePerRootInk(keys);
   const valueTexts = rows.map((r) => (byShare ? formatShare(r.value) : formatValue(r.value)));
   // The size parameter is the glyph size G; each glyph's box follows from the shared ink area (G / largest)².
   const items: CellItem[] = rows.map((r, i) => {
@@ -57,8 +59,8 @@ export function fillLayout(ctx: LayoutContext): ModeResult {
     maxSize: asked ?? FILL_MAX_GLYPH_MM,
     minSize: Math.min(MIN_GLYPH_MM, asked ?? MIN_GLYPH_MM),
   });
-  if (!plan.fits) ctx.warnings.push(overflowWarning('The glyphs'));
-  else if (asked !== undefined && plan.size < asked - 1e-9) {
+  if (!plan.fits) throw noRoomError(spec, { what: 'The glyphs and their labels', roomMm: { width: box.width, height: box.height }, neededMm: { width: plan.widthMm, height: plan.heightMm } });
+  if (asked !== undefined && plan.size < asked - 1e-9) {
     ctx.warnings.push({ code: 'glyph-size-reduced', message: `Glyphs of ${formatValue(asked)} mm do not fit inside the margins; they are drawn at ${formatValue(plan.size)} mm.` });
   }
   const root = plan.size / f.largest;
@@ -91,8 +93,8 @@ export function fillLayout(ctx: LayoutContext): ModeResult {
   if (layout.legend) {
     const unitName = spec.encoding.unitName ?? '';
     const sentence = byShare ? 'full glyph = 100%' : unitLegendText(fullValue, unitName, 'full glyph =');
-    const keyShape = book.shape(ctx.chartGlyph, keyInkMm2(inkMm2, root * keyFactor.height));
-    const legend = placeUnitLegend(book, keyShape, box, plan.bottomMm + LEGEND_GAP_MM, sentence, fullValue, unitName);
+    const keyInk = keyInkMm2(inkMm2, root * keyFactor.height);
+    const legend = placeUnitLegend(book, keys.map((g) => book.shape(g, keyInk)), box, plan.bottomMm + LEGEND_GAP_MM, sentence, fullValue, unitName);
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }

@@ -6,7 +6,7 @@ export { resolveGlyphs, type ResolvedGlyph, type ResolvedGlyphs } from './resolv
 export { createGlyphBook, mmPerGlyphUnit, type ChartShape, type GlyphBook } from './glyphBook';
 export { resolveUnit, exactGlyphs, type GlyphCount, type ResolvedUnit } from './resolveUnit';
 export { boxesOverlap, findLabelCollisions, markBoxes, resolveLabelCollisions, type LabelCollision } from './collisions';
-export { PALETTE, INK_COLORS, REST_WHITE_SHARE, categoryColor, mixWithWhite, opaqueColor } from './palette';
+export { PALETTE, PALETTE_SOURCE, INK_COLORS, REST_WHITE_SHARE, categoryColor, checkDistinctColors, mixWithWhite, opaqueColor } from './palette';
 export { TEXT_SIZE_MM, MIN_TEXT_SIZE_MM, formatValue, formatShare } from './labels';
 export { readableFloor, SCALE_LEGEND_CAPTION } from './legend';
 export { RULE_WIDTH_MM } from './stackLayout';

@@ -5,11 +5,14 @@ import type { ChartSpec } from '../document';
 import type { Warning } from '../errors';
 import type { ChartSummary, Reading, Scene, SceneText } from '../scene';
 import { resolveLabelCollisions } from './collisions';
+import { MIN_GLYPH_MM } from './fitSize';
+import { noRoomError } from './noRoom';
+import { sliverWarnings } from './slivers';
 import { fillLayout } from './fillLayout';
 import { createGlyphBook } from './glyphBook';
 import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, wrapText } from './labels';
 import type { BoxMm, ChartRow, LayoutContext, ModeResult } from './layoutContext';
-import { categoryColor, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
+import { categoryColor, checkDistinctColors, contrastRatio, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
 import { repeatLayout } from './repeatLayout';
 import { resolveGlyphs } from './resolveGlyphs';
 import { scaleLayout } from './scaleLayout';
@@ -73,12 +76,20 @@ function pageFrame(spec: ChartSpec): Frame {
     });
     bottom -= m.boxHeightMm + (count - 1) * m.lineHeightMm + BLOCK_GAP_MM;
   }
+  // Title and source must leave room for at least a row of legible glyphs between them, or they overlap.
+  if (bottom - top < MIN_GLYPH_MM) {
+    throw noRoomError(spec, {
+      what: 'The title, the source and the chart between them',
+      neededMm: { width, height: spec.page.heightMm - margins.top - margins.bottom + (top - bottom) + MIN_GLYPH_MM },
+      roomMm: { width, height: spec.page.heightMm - margins.top - margins.bottom },
+    });
+  }
   return { box: { x, y: top, width, height: Math.max(0, bottom - top) }, texts };
 }
 
 function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['rows'], warnings: Warning[]): ChartRow[] {
   const warned = new Set<string>();
-  return spec.data.map((row, i) => {
+  const out = spec.data.map((row, i) => {
     const given = categoryColor(i, row.color, spec.layout.colors);
     // One warning per colour, however many categories share it.
     const color = opaqueColor(given, warned.has(given) ? undefined : warnings, `"${row.label}"`);
@@ -94,6 +105,9 @@ function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['ro
       restColor: mixWithWhite(color, REST_WHITE_SHARE),
     };
   });
+  const sharedGrid = spec.encoding.mode === 'repeat' && spec.encoding.arrangement === 'shared-grid';
+  checkDistinctColors(out.map((r) => r.label), out.map((r) => r.color), sharedGrid, warnings);
+  return out;
 }
 
 function runMode(ctx: LayoutContext): ModeResult {
@@ -126,6 +140,9 @@ export function layoutChart(spec: ChartSpec): Scene {
   const book = createGlyphBook();
   const ctx: LayoutContext = { spec, rows, chartGlyph: glyphs.chart, box: frame.box, book, warnings };
   const result = runMode(ctx);
+  // Slivers only where one category owns each partial glyph; a shared grid splits glyphs between categories.
+  const sharedGrid = mode === 'repeat' && spec.encoding.arrangement === 'shared-grid';
+  if ((mode === 'repeat' && !sharedGrid) || mode === 'stack') warnings.push(...sliverWarnings(spec, result.marks, result.unit));
 
   const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] });
   warnings.push(...resolved.warnings);
@@ -160,6 +177,14 @@ export function layoutChart(spec: ChartSpec): Scene {
     shapes: book.shapes(),
   };
   if (result.unitChoice) scene.unitChoice = result.unitChoice;
+  if (spec.layout.background) {
+    // Painted opaque to the bleed edge; verification then reads marks against it as the paper colour.
+    scene.background = opaqueColor(spec.layout.background, scene.warnings, 'The page background');
+    const ratio = contrastRatio(scene.background, INK_COLORS.text);
+    if (ratio < 4.5) {
+      scene.warnings.push({ code: 'background-contrast', message: `Text on the ${scene.background} background has a contrast of ${ratio.toFixed(1)}:1, under the 4.5:1 WCAG 2.1 asks of body text; choose a lighter background.` });
+    }
+  }
   return scene;
 }
 

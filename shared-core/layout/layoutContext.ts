@@ -63,9 +63,12 @@ export function sizePerRootInk(glyphs: readonly ResolvedGlyph[]): { width: numbe
   return { width, height, largest: Math.max(width, height) };
 }
 
-export function overflowWarning(what: string): Warning {
-  return {
-    code: 'layout-overflow',
-    message: `${what} do not fit inside the margins even at the smallest glyph size; some content runs past the margins. Use a larger page, fewer glyphs (a larger unit) or smaller margins.`,
-  };
+/**
+ * The glyphs a unit legend keys: each distinct glyph drawn by a category with a value, in order of first use,
+ * so a row drawn with its own glyph is explained too; the chart glyph when nothing is drawn.
+ */
+export function keyGlyphs(ctx: Pick<LayoutContext, 'rows' | 'chartGlyph'>): ResolvedGlyph[] {
+  const out: ResolvedGlyph[] = [];
+  for (const r of ctx.rows) if (r.value > 0 && !out.includes(r.glyph)) out.push(r.glyph);
+  return out.length > 0 ? out : [ctx.chartGlyph];
 }

@@ -11,6 +11,7 @@ import type { ResolvedGlyph } from './resolveGlyphs';
 /** Space between the marks (or their labels) and the legend row. */
 export const LEGEND_GAP_MM = 4;
 const KEY_TEXT_GAP_MM = 2;
+const KEY_GLYPH_GAP_MM = 1.5;
 
 export interface LegendPart {
   texts: SceneText[];
@@ -45,27 +46,30 @@ export function singularOf(unitName: string): string {
   return words.join(' ');
 }
 
-/** Key glyph (a full glyph at the chart's unit ink) and its sentence, in a row starting at topMm. */
-export function placeUnitLegend(book: GlyphBook, shape: ChartShape, box: BoxMm, topMm: number, text: string, unitValue: number, unitName: string): LegendPart {
+/**
+ * Key glyphs (full glyphs at the chart's unit ink, one per distinct glyph drawn, so a row drawn with its own
+ * glyph is keyed too) and the sentence, in a row starting at topMm; glyphs and sentence share one centre line.
+ */
+export function placeUnitLegend(book: GlyphBook, shapes: ChartShape | readonly ChartShape[], box: BoxMm, topMm: number, text: string, unitValue: number, unitName: string): LegendPart {
+  const list = Array.isArray(shapes) ? (shapes as readonly ChartShape[]) : [shapes as ChartShape];
   const m = lineMetrics(TEXT_SIZE_MM.legend);
-  const rowHeightMm = Math.max(shape.heightMm, m.boxHeightMm);
-  const keyYMm = topMm + (rowHeightMm - shape.heightMm) / 2;
-  const key: SceneLegendKey = {
-    glyph: shape.glyph.name,
-    region: book.full(shape, box.x, keyYMm).region,
-    color: INK_COLORS.key,
-    unitValue,
-    unitName,
-  };
+  const rowHeightMm = Math.max(...list.map((s) => s.heightMm), m.boxHeightMm);
+  const legendKeys: SceneLegendKey[] = [];
+  let x = box.x;
+  list.forEach((shape, i) => {
+    const keyYMm = topMm + (rowHeightMm - shape.heightMm) / 2;
+    legendKeys.push({ glyph: shape.glyph.name, region: book.full(shape, x, keyYMm).region, color: INK_COLORS.key, unitValue, unitName });
+    x += shape.widthMm + (i < list.length - 1 ? KEY_GLYPH_GAP_MM : 0);
+  });
   const label = makeText({
     role: 'legend',
     text,
-    xMm: box.x + shape.widthMm + KEY_TEXT_GAP_MM,
+    xMm: x + KEY_TEXT_GAP_MM,
     yMm: topMm + rowHeightMm / 2 + m.capHeightMm / 2,
     sizeMm: TEXT_SIZE_MM.legend,
     color: INK_COLORS.muted,
   });
-  return { texts: [label], legendKeys: [key], bottomMm: topMm + rowHeightMm };
+  return { texts: [label], legendKeys, bottomMm: topMm + rowHeightMm };
 }
 
 /** Largest readable amount (1, 2, 2.5 or 5 x 10^k) not above x. */
@@ -90,7 +94,7 @@ interface Reference {
 
 /**
  * Reference amounts for a scale legend: a readable value near a quarter of the largest, and one near a
- * quarter of that (half its height) when there is room to label both.
+ * quarter of that (half its height) when it is still tall enough to read as the glyph.
  */
 function references(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number): Reference[] {
   const first = readableFloor(maxValue / 4);
@@ -100,46 +104,40 @@ function references(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: numbe
   const m = lineMetrics(TEXT_SIZE_MM.legend);
   if (second > 0 && second < first) {
     const shape = book.shape(glyph, inkMm2PerValue * second);
-    // Both labels sit at their glyph's top; they need a line of height between them and room below.
-    if (refs[0].shape.heightMm - shape.heightMm >= m.lineHeightMm && shape.heightMm >= m.capHeightMm + m.descentMm) refs.push({ value: second, shape });
+    if (shape.heightMm >= m.capHeightMm + m.descentMm) refs.push({ value: second, shape });
   }
   return refs;
 }
 
-/** Height the scale legend adds below the marks, gap included. Probes the book only for sizes. */
+/** Height the scale legend adds below the marks, gap included: the reference glyphs over one line of their values. */
 export function scaleLegendHeightMm(glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number): number {
   const first = readableFloor(maxValue / 4);
   if (!(first > 0)) return 0;
   const heightMm = glyph.bbox.height * Math.sqrt((inkMm2PerValue * first) / glyph.areaUnits2);
-  return LEGEND_GAP_MM + Math.max(heightMm, lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm);
+  return LEGEND_GAP_MM + heightMm + KEY_TEXT_GAP_MM + lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm;
 }
 
-/** Nested reference glyphs, bottom-aligned and centred on each other, largest behind, each labelled at its top. */
+/**
+ * The scale key as a grid: the caption in the first column, then one column per reference glyph, the glyphs
+ * standing on one baseline and each value centred under its glyph on the caption's text line.
+ */
 export function placeScaleLegend(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number, unitName: string, box: BoxMm, topMm: number): LegendPart {
   const refs = references(book, glyph, inkMm2PerValue, maxValue);
   if (refs.length === 0) return { texts: [], legendKeys: [], bottomMm: topMm };
   const m = lineMetrics(TEXT_SIZE_MM.legend);
-  const rowHeightMm = Math.max(refs[0].shape.heightMm, m.boxHeightMm);
-  const bottomMm = topMm + rowHeightMm;
-  const caption = makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: bottomMm - m.descentMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted });
-  const groupXMm = box.x + textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend) + 3;
-  const widest = refs[0].shape.widthMm;
-  const texts: SceneText[] = [caption];
+  const glyphBaseMm = topMm + refs[0].shape.heightMm;
+  const textBaselineMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.ascentMm;
+  const bottomMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.boxHeightMm;
+  const texts: SceneText[] = [makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted })];
   const legendKeys: SceneLegendKey[] = [];
+  let columnXMm = box.x + textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend) + 3;
   refs.forEach((ref, i) => {
-    const x = groupXMm + (widest - ref.shape.widthMm) / 2;
-    const y = bottomMm - ref.shape.heightMm;
-    legendKeys.push({ glyph: glyph.name, region: book.full(ref.shape, x, y).region, color: INK_COLORS.referenceKeys[i], unitValue: ref.value, unitName });
-    texts.push(
-      makeText({
-        role: 'legend',
-        text: `${formatValue(ref.value)}${unitName ? ` ${unitName}` : ''}`,
-        xMm: groupXMm + widest + KEY_TEXT_GAP_MM,
-        yMm: Math.min(y + m.capHeightMm, bottomMm - m.descentMm),
-        sizeMm: TEXT_SIZE_MM.legend,
-        color: INK_COLORS.muted,
-      }),
-    );
+    const valueText = `${formatValue(ref.value)}${unitName ? ` ${unitName}` : ''}`;
+    const columnWMm = Math.max(ref.shape.widthMm, textWidthMm(valueText, TEXT_SIZE_MM.legend));
+    const centreXMm = columnXMm + columnWMm / 2;
+    legendKeys.push({ glyph: glyph.name, region: book.full(ref.shape, centreXMm - ref.shape.widthMm / 2, glyphBaseMm - ref.shape.heightMm).region, color: INK_COLORS.referenceKeys[i + 1] ?? INK_COLORS.key, unitValue: ref.value, unitName });
+    texts.push(makeText({ role: 'legend', text: valueText, xMm: centreXMm, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, anchor: 'middle', color: INK_COLORS.muted }));
+    columnXMm += columnWMm + 4;
   });
   return { texts, legendKeys, bottomMm };
 }

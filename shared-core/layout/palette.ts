@@ -1,19 +1,23 @@
-// Tallyglyph's own colours. The category palette was picked here by hand: eight mid-tone hues far
-// enough apart to tell categories apart, each at least 3:1 against white paper (the contrast WCAG 2.1
-// asks of graphical objects), and deliberately not any charting program's default set.
-import type { Warning } from '../errors';
+// Tallyglyph's colours. Categories take Paul Tol's "muted" qualitative scheme (Paul Tol, "Colour Schemes",
+// SRON technical note SRON/EPS/TN/09-002, 2021; hex values from memory): nine colours chosen to stay
+// distinguishable for readers with colour-vision deficiency and in grey print. Ordered so the six that reach
+// 3:1 against white paper (the contrast WCAG 2.1 asks of graphical objects) come first.
+import { TallyError, type Warning } from '../errors';
 
-/** Category colours in order of use: lake blue, terracotta, moss, plum, ochre, raspberry, verdigris, slate. */
+/** Category colours in order of use: indigo, rose, green, purple, olive, wine, teal, cyan, sand. */
 export const PALETTE: readonly string[] = Object.freeze([
-  '#2f6f8f',
-  '#d0673a',
-  '#5f8d3b',
-  '#8c4f9f',
-  '#b08a17',
-  '#b3435a',
-  '#3a8f84',
-  '#6a6f7b',
+  '#332288',
+  '#cc6677',
+  '#117733',
+  '#aa4499',
+  '#999933',
+  '#882255',
+  '#44aa99',
+  '#88ccee',
+  '#ddcc77',
 ]);
+
+export const PALETTE_SOURCE = 'Paul Tol\'s muted scheme';
 
 /** Colours that are not data: text, secondary text, rules and legend keys. */
 export const INK_COLORS = Object.freeze({
@@ -65,4 +69,48 @@ export function categoryColor(index: number, own: string | undefined, listed: re
   if (own) return own;
   const list = listed && listed.length > 0 ? listed : PALETTE;
   return list[index % list.length];
+}
+
+/**
+ * Where colour is the only thing that tells categories apart (a shared grid), two categories may never share
+ * one: refuses (TallyError 'data-invalid') with the two names, or, for more categories than the palette has
+ * colours, with the reason. Elsewhere each category carries its own label, so a repeated colour is allowed but
+ * said (warning 'color-repeated').
+ */
+export function checkDistinctColors(labels: readonly string[], colors: readonly string[], colourIdentifies: boolean, warnings: Warning[]): void {
+  const first = new Map<string, number>();
+  const clashes: [number, number][] = [];
+  colors.forEach((c, i) => {
+    const seen = first.get(c);
+    if (seen === undefined) first.set(c, i);
+    else clashes.push([seen, i]);
+  });
+  if (clashes.length === 0) return;
+  const [a, b] = clashes[0];
+  const pair = `"${labels[a]}" and "${labels[b]}" are both ${colors[a]}`;
+  if (!colourIdentifies) {
+    warnings.push({ code: 'color-repeated', message: `${pair}${clashes.length > 1 ? ` (and ${clashes.length - 1} more pairs)` : ''}; their labels tell them apart, but a reader matching by colour could confuse them.` });
+    return;
+  }
+  if (labels.length > PALETTE.length && first.size <= PALETTE.length) {
+    throw new TallyError(
+      'data-invalid',
+      `A shared grid tells its categories apart by colour alone, and ${labels.length} categories are more than the ${PALETTE.length} colours ` +
+        `that stay distinguishable for readers with colour-vision deficiency (${PALETTE_SOURCE}). Merge the smallest into one "Other" category, ` +
+        'or draw one row per category.',
+    );
+  }
+  throw new TallyError('data-invalid', `In a shared grid colour alone tells categories apart, but ${pair}. Give each category its own colour.`);
+}
+
+/** WCAG 2.1 contrast ratio of two opaque #rrggbb colours: (L1 + 0.05) / (L2 + 0.05) with sRGB relative luminance. */
+export function contrastRatio(a: string, b: string): number {
+  const lum = (hex: string) => {
+    const [r, g, bl] = [0, 2, 4]
+      .map((i) => parseInt(hexDigits(hex.toLowerCase()).slice(i, i + 2), 16) / 255)
+      .map((c) => (c <= 0.03928 ? c / 12.92 : ((c + 0.055) / 1.055) ** 2.4));
+    return 0.2126 * r + 0.7152 * g + 0.0722 * bl;
+  };
+  const [hi, lo] = [lum(a), lum(b)].sort((x, y) => y - x);
+  return (hi + 0.05) / (lo + 0.05);
 }

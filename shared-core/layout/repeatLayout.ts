@@ -4,11 +4,12 @@ import type { RepeatEncoding } from '../document';
 import type { CutDirection } from '../glyph';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
 import { chooseGlyphSize } from './fitSize';
-import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, textWidthMm, TEXT_SIZE_MM } from './labels';
-import { sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { isTallyError } from '../errors';
+import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
+import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
-import { resolveUnit, type GlyphCount } from './resolveUnit';
+import { resolveUnit, withFittingUnit, type GlyphCount } from './resolveUnit';
 import type { ResolvedGlyph } from './resolveGlyphs';
 
 /** Largest glyph the layout picks by itself (common practice for icon arrays, no source). */
@@ -60,10 +61,12 @@ function slotsOf(c: GlyphCount): number {
 
 export function repeatLayout(ctx: LayoutContext): ModeResult {
   const shared = (ctx.spec.encoding as RepeatEncoding).arrangement === 'shared-grid';
-  const unit = resolveUnit(ctx.spec, { maxGlyphsPerCategory: shared ? 100 : 50, sharedGrid: shared });
-  ctx.warnings.push(...unit.warnings);
-  const result = shared ? sharedGrid(ctx, unit.counts, unit.unit) : perCategory(ctx, unit.counts, unit.unit);
-  return { ...result, unitChoice: unit.choice };
+  return withFittingUnit(ctx, { maxGlyphsPerCategory: shared ? 100 : 50, sharedGrid: shared }, (opts) => {
+    const unit = resolveUnit(ctx.spec, opts);
+    ctx.warnings.push(...unit.warnings);
+    const result = shared ? sharedGrid(ctx, unit.counts, unit.unit) : perCategory(ctx, unit.counts, unit.unit);
+    return { ...result, unitChoice: unit.choice };
+  });
 }
 
 function legendSentence(ctx: LayoutContext, unit: number): string {
@@ -71,23 +74,39 @@ function legendSentence(ctx: LayoutContext, unit: number): string {
   return ctx.spec.encoding.rounding === 'whole' ? `${text} (counts rounded to whole glyphs)` : text;
 }
 
+/** Text scales tried, largest first, when the rows do not fit: the smallest keeps labels at the print minimum. */
+const TEXT_SCALES = [1, 0.85, MIN_TEXT_SIZE_MM / TEXT_SIZE_MM.label];
+
 function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): ModeResult {
+  // Many categories on a short page: smaller label text before giving up, never below the print minimum.
+  for (let k = 0; ; k++) {
+    const scale = TEXT_SCALES[k];
+    try {
+      return perCategoryAt(ctx, counts, unit, TEXT_SIZE_MM.label * scale, Math.max(MIN_TEXT_SIZE_MM, TEXT_SIZE_MM.valueLabel * scale));
+    } catch (e) {
+      if (!(isTallyError(e) && e.code === 'layout-no-room') || k >= TEXT_SCALES.length - 1) throw e;
+    }
+  }
+}
+
+function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, labelSizeMm: number, valueSizeMm: number): ModeResult {
   const { spec, box, rows, book } = ctx;
   const { layout } = spec;
   const direction = cutDirection(layout.direction);
-  const lm = lineMetrics(TEXT_SIZE_MM.label);
-  const vm = lineMetrics(TEXT_SIZE_MM.valueLabel);
+  const lm = lineMetrics(labelSizeMm);
+  const vm = lineMetrics(valueSizeMm);
   const valueTexts = rows.map((r) => formatValue(r.value));
   // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
-  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, TEXT_SIZE_MM.label) : []));
-  const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, TEXT_SIZE_MM.label))) + LABEL_PAD_MM : 0;
-  const valueColMm = layout.valueLabels ? VALUE_PAD_MM + Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
+  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, labelSizeMm) : []));
+  const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
+  const valueColMm = layout.valueLabels ? VALUE_PAD_MM + Math.max(...valueTexts.map((t) => textWidthMm(t, valueSizeMm))) : 0;
   const gridXMm = box.x + labelColMm;
   const gridRoomMm = box.width - labelColMm - valueColMm;
   const slots = counts.map(slotsOf);
   const mostSlots = Math.max(1, ...slots);
   const glyphs = [...new Set(rows.map((r) => r.glyph))];
-  const keyFactor = sizePerRootInk([ctx.chartGlyph]);
+  const keys = keyGlyphs(ctx);
+  const keyFactor = sizePerRootInk(keys);
   const firstLineMm = Math.max(layout.labels ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
 
 
@@ -101,7 +120,7 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
     const bandMm = rowsPer.map((r, i) =>
       Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
     );
-    const bandGapMm = g.gapMm + 2;
+    const bandGapMm = g.gapMm + 1;
     const keyHeightMm = Math.sqrt(g.inkMm2) * keyFactor.height;
     const heightMm = bandMm.reduce((a, b) => a + b, 0) + (rows.length - 1) * bandGapMm + (layout.legend ? unitLegendHeightMm(keyHeightMm) : 0);
     return { ...g, columns, offsetMm, rowsPer, bandMm, bandGapMm, heightMm };
@@ -110,13 +129,21 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
     const p = plan(sizeMm);
     return gridWidthMm(p.columns, p) <= gridRoomMm + EPS_MM && p.heightMm <= box.height + EPS_MM;
   };
-  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph rows'));
+  const explain = (smallestMm: number) => {
+    const q = plan(smallestMm);
+    return { neededMm: { width: labelColMm + gridWidthMm(q.columns, q) + valueColMm, height: q.heightMm }, roomMm: { width: box.width, height: box.height } };
+  };
+  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph rows and their labels', explain));
   const shapeFor = (g: ResolvedGlyph) => book.shape(g, p.inkMm2);
   const fullWidthMm = gridWidthMm(p.columns, p);
 
   const marks: SceneMark[] = [];
   const texts: SceneText[] = [];
-  let topMm = box.y;
+  // Use the page: spare height opens the gaps between categories (up to half a band each) and centres the rest.
+  const spareHMm = Math.max(0, box.height - p.heightMm);
+  const bandGrowMm = rows.length > 1 ? Math.min(spareHMm / rows.length, Math.min(...p.bandMm) / 2) : 0;
+  const bandGapMm = p.bandGapMm + bandGrowMm;
+  let topMm = box.y + (spareHMm - bandGrowMm * (rows.length - 1)) / 2;
   rows.forEach((row, i) => {
     const count = counts[i];
     const shape = shapeFor(row.glyph);
@@ -132,21 +159,21 @@ function perCategory(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mo
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces, intended: count.drawn });
 
     const baselineMm = rowTopMm + p.cellHMm / 2 + lm.capHeightMm / 2;
-    if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, owner: row.id }, labelText[i], lm.lineHeightMm));
+    if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: labelSizeMm, owner: row.id }, labelText[i], lm.lineHeightMm));
     if (layout.valueLabels) {
       // On one left-to-right row the value follows its last glyph, like a bar-end label; otherwise it
       // stands after the grid.
       const oneRow = slots[i] <= p.columns && direction === 'ltr';
       const endMm = oneRow ? gridXMm + gridWidthMm(Math.max(slots[i], 0), p) : gridXMm + fullWidthMm;
-      texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
+      texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
     }
-    topMm += p.bandMm[i] + p.bandGapMm;
+    topMm += p.bandMm[i] + bandGapMm;
   });
 
   const legendKeys: SceneLegendKey[] = [];
   if (layout.legend) {
-    const chartBottomMm = topMm - p.bandGapMm;
-    const legend = placeUnitLegend(book, book.shape(ctx.chartGlyph, p.inkMm2), box, chartBottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
+    const chartBottomMm = topMm - bandGapMm;
+    const legend = placeUnitLegend(book, keys.map((g) => book.shape(g, p.inkMm2)), box, chartBottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }
@@ -199,16 +226,24 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
     const p = plan(sizeMm);
     return gridWidthMm(p.columns, p) <= p.roomMm + EPS_MM && p.heightMm <= box.height + EPS_MM;
   };
-  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph grid'));
+  const explain = (smallestMm: number) => {
+    const q = plan(smallestMm);
+    return { neededMm: { width: box.width - q.roomMm + gridWidthMm(q.columns, q), height: q.heightMm }, roomMm: { width: box.width, height: box.height } };
+  };
+  const p = plan(chooseGlyphSize(ctx, REPEAT_MAX_GLYPH_MM, fits, 'The glyph grid and its key', explain));
   const shape = book.shape(glyph, p.inkMm2);
+  // Use the page: the grid and its key list together are centred in the box, across and down.
+  const blockWMm = gridWidthMm(p.columns, p) + (box.width - p.roomMm);
+  const originX = box.x + Math.max(0, box.width - blockWMm) / 2;
+  const originY = box.y + Math.max(0, box.height - p.heightMm) / 2;
 
   const pieces: SceneGlyph[][] = rows.map(() => []);
   // Runs are contiguous and in order, so one cursor finds the runs touching each slot (slots + rows, not slots × rows).
   let first = 0;
   for (let j = 0; j < slotCount; j++) {
     const { row: r, column: c } = slotCell(j, p.columns, p.gridRows, direction);
-    const x = box.x + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
-    const y = box.y + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
+    const x = originX + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+    const y = originY + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
     while (first < rows.length && starts[first] + counts[first].drawn <= j) first++;
     for (let i = first; i < rows.length && starts[i] < j + 1; i++) {
       const from = Math.max(starts[i], j) - j;
@@ -223,8 +258,8 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const texts: SceneText[] = [];
   const legendKeys: SceneLegendKey[] = [];
   if (listed) {
-    const listXMm = box.x + gridWidthMm(p.columns, p) + 4;
-    let topMm = box.y;
+    const listXMm = originX + gridWidthMm(p.columns, p) + 4;
+    let topMm = originY;
     rows.forEach((row, i) => {
       const entryMm = p.entryMm[i];
       const keyYMm = topMm + (entryMm - shape.heightMm) / 2;
@@ -239,8 +274,8 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
     });
   }
   if (layout.legend) {
-    const bottomMm = box.y + Math.max(p.gridHMm, p.listHMm);
-    const legend = placeUnitLegend(book, shape, box, bottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
+    const bottomMm = originY + Math.max(p.gridHMm, p.listHMm);
+    const legend = placeUnitLegend(book, shape, { ...box, x: originX }, bottomMm + LEGEND_GAP_MM, legendSentence(ctx, unit), unit, spec.encoding.unitName ?? '');
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }

@@ -3,10 +3,11 @@
 // glyph is normalised by its own ink, so a bus and a bike still carry ink in proportion to value.
 import { scaleSqrt } from 'd3-scale';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
+import { noRoomError } from './noRoom';
 import { planCellRows, TEXT_GAP_MM, type CellItem } from './cellRows';
 import { MIN_GLYPH_MM } from './fitSize';
 import { formatValue, lineMetrics, makeLines, makeText, TEXT_SIZE_MM } from './labels';
-import { overflowWarning, type LayoutContext, type ModeResult } from './layoutContext';
+import { type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeScaleLegend, scaleLegendHeightMm } from './legend';
 import { INK_COLORS } from './palette';
 
@@ -38,8 +39,8 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
     maxSize,
     minSize: Math.min(MIN_GLYPH_MM / largestSide, maxSize),
   });
-  if (!plan.fits) ctx.warnings.push(overflowWarning('The scaled glyphs'));
-  else if (asked !== undefined && plan.size < maxSize * (1 - 1e-9)) {
+  if (!plan.fits) throw noRoomError(spec, { what: 'The scaled glyphs and their labels', roomMm: { width: box.width, height: box.height }, neededMm: { width: plan.widthMm, height: plan.heightMm } });
+  if (asked !== undefined && plan.size < maxSize * (1 - 1e-9)) {
     ctx.warnings.push({ code: 'glyph-size-reduced', message: `The largest glyph at ${formatValue(asked)} mm does not fit inside the margins; it is drawn at ${formatValue(plan.size * largestSide)} mm.` });
   }
   const k = inkPerValue(plan.size);

@@ -14,6 +14,9 @@ const SHEETS: { name: string; widthMm: number; heightMm: number }[] = [
   { name: 'Letter', widthMm: 215.9, heightMm: 279.4 },
 ];
 
+/** A warm paper white: light enough that text keeps well over 4.5:1 (WCAG 2.1) against it. */
+const DEFAULT_BACKGROUND = '#fbf8f1';
+
 const UNIT_NAMES: Record<PageUnit, string> = { mm: 'mm', in: 'in', pt: 'pt', px: 'px' };
 
 interface PagePanelProps {
@@ -49,6 +52,7 @@ export function PagePanel({ doc, dispatch }: PagePanelProps): ReactElement {
   };
 
   const current = sheetName(widthMm, heightMm);
+  const background = doc.layout.background;
 
   return (
     <div className="page-panel">
@@ -98,6 +102,33 @@ export function PagePanel({ doc, dispatch }: PagePanelProps): ReactElement {
           hint="Printers commonly ask for 3 mm."
           onCommit={(v) => dispatch({ type: 'set-bleed', bleedMm: v })}
         />
+      </div>
+      <div className="field-row align-end">
+        <div className="field">
+          <label htmlFor="page-background-on">
+            <input
+              id="page-background-on"
+              type="checkbox"
+              checked={background !== undefined}
+              data-testid="page-background-on"
+              onChange={(e) => dispatch({ type: 'set-background', background: e.target.checked ? DEFAULT_BACKGROUND : null })}
+            />{' '}
+            Background
+          </label>
+          <span className="field-hint">{background === undefined ? 'None: the page stays transparent in SVG and PNG.' : 'Painted to the bleed edge.'}</span>
+        </div>
+        {background !== undefined && (
+          <div className="field narrow-field">
+            <label htmlFor="page-background">Colour</label>
+            <input
+              id="page-background"
+              type="color"
+              value={background}
+              data-testid="page-background"
+              onChange={(e) => dispatch({ type: 'set-background', background: e.target.value })}
+            />
+          </div>
+        )}
       </div>
     </div>
   );

@@ -29,6 +29,8 @@ export type Action =
   | { type: 'set-page-unit'; unit: PageUnit }
   | { type: 'set-margins'; margins: MarginsMm }
   | { type: 'set-bleed'; bleedMm: number }
+  /** null: no background (a transparent page). */
+  | { type: 'set-background'; background: string | null }
   | { type: 'set-show'; what: 'labels' | 'valueLabels' | 'legend'; on: boolean };
 
 export type ActionType = Action['type'];
@@ -56,6 +58,7 @@ export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze(
   'set-page-unit': 'page unit change',
   'set-margins': 'margin change',
   'set-bleed': 'bleed change',
+  'set-background': 'background change',
   'set-show': 'label setting',
 });
 
@@ -206,6 +209,12 @@ export function perform(doc: EditorDocument, action: Action): EditorDocument {
     case 'set-bleed':
       if (!(Number.isFinite(action.bleedMm) && action.bleedMm >= 0) || action.bleedMm === doc.layout.bleedMm) return doc;
       return { ...doc, layout: { ...doc.layout, bleedMm: action.bleedMm } };
+    case 'set-background': {
+      const next = action.background !== null && /^#[0-9a-f]{6}$/i.test(action.background) ? action.background.toLowerCase() : undefined;
+      if (next === doc.layout.background) return doc;
+      const { background: _old, ...rest } = doc.layout;
+      return { ...doc, layout: next ? { ...rest, background: next } : rest };
+    }
     case 'set-show':
       return doc.layout[action.what] === action.on ? doc : { ...doc, layout: { ...doc.layout, [action.what]: action.on } };
   }

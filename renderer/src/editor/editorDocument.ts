@@ -207,6 +207,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
   };
   if (ed.layout.glyphSizeMm !== undefined) layout.glyphSizeMm = ed.layout.glyphSizeMm;
   if (ed.layout.colors !== undefined && ed.layout.colors.length > 0) layout.colors = [...ed.layout.colors];
+  if (ed.layout.background !== undefined) layout.background = ed.layout.background;
 
   const document: ChartDocument = {
     format: CHART_FORMAT,

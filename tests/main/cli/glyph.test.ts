@@ -45,4 +45,21 @@ describe('tallyglyph glyph', () => {
     expect(bad.stderr).toMatch(/path data cannot be read/);
     expect(bad.stderr).not.toMatch(/at .*\.ts:\d+/); // no stack trace
   });
+  it('warns when the ink reaches outside the viewBox (a drop drawn from y 5 to 103 in a 0-100 box)', () => {
+    const dir = mkdtempSync(join(tmpdir(), 'tg-glyph-'));
+    const file = join(dir, 'drop.svg');
+    // A polygon with its lowest point at y = 103: 3 units below the viewBox's bottom edge at 100 (SVG 1.1, 7.7 viewBox).
+    writeFileSync(file, '<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 100 100"><path d="M50 5 L80 60 L50 103 L20 60 Z"/></svg>');
+    const r = run('glyph', file);
+    expect(r.status).toBe(0);
+    expect(r.stdout).toMatch(/warning\s+The ink reaches outside the glyph's viewBox \(0 0 100 100\): 3 units below the bottom/);
+    const json = JSON.parse(run('glyph', file, '--json').stdout);
+    expect(json.warnings.map((w: { code: string }) => w.code)).toEqual(['ink-outside-viewbox']);
+  });
+  it('gives no such warning for bundled glyphs whose ink strays under a thousandth of the box (stroke joins)', () => {
+    for (const name of ['bike', 'fish', 'motorbike', 'wheelchair', 'drop', 'person']) {
+      const ink = measureGlyph(getGlyph(name).svg);
+      expect(ink.warnings.map((w) => w.code)).not.toContain('ink-outside-viewbox');
+    }
+  });
 });

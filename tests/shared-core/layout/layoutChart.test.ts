@@ -356,9 +356,17 @@ describe('layoutChart text', () => {
     }
   });
 
-  it('warns, rather than failing, when a chart cannot fit its page', () => {
-    const scene = lay({ mode: 'stack', glyph: 'coin', unit: 1 }, rows(...Array.from({ length: 40 }, (_, i) => i + 1)));
-    expect(scene.warnings.map((w) => w.code)).toContain('layout-overflow');
+  it('refuses, before anything is written, a chart that cannot fit its page at a legible size', () => {
+    const e = (() => {
+      try {
+        lay({ mode: 'stack', glyph: 'coin', unit: 1 }, rows(...Array.from({ length: 40 }, (_, i) => i + 1)));
+      } catch (err) {
+        return err as TallyError;
+      }
+      return null;
+    })();
+    expect(e?.code).toBe('layout-no-room');
+    expect(e?.message).toMatch(/bigger page/);
   });
 
   it('writes the legend sentence with the unit', () => {

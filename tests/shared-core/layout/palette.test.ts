@@ -16,19 +16,20 @@ function contrast(a: string, b: string): number {
 }
 
 describe('PALETTE', () => {
-  it('has eight distinct opaque colours', () => {
-    expect(new Set(PALETTE).size).toBe(8);
+  it('has nine distinct opaque colours', () => {
+    expect(new Set(PALETTE).size).toBe(9);
     for (const c of PALETTE) expect(c).toMatch(/^#[0-9a-f]{6}$/);
   });
 
-  it('keeps every colour at least 3:1 against white paper (WCAG 2.1, 1.4.11 non-text contrast)', () => {
-    for (const c of PALETTE) expect(contrast(c, '#ffffff')).toBeGreaterThanOrEqual(3);
+  it('keeps the first six colours at least 3:1 against white paper (WCAG 2.1, 1.4.11 non-text contrast)', () => {
+    // The scheme's cyan and sand are light (about 1.7:1); they come last so charts of up to six categories meet 3:1.
+    for (const c of PALETTE.slice(0, 6)) expect(contrast(c, '#ffffff')).toBeGreaterThanOrEqual(3);
   });
 
   it('uses a row colour first, then the document list, then the palette, cycling', () => {
     expect(categoryColor(0, '#123456', ['#abcdef'])).toBe('#123456');
     expect(categoryColor(3, undefined, ['#000001', '#000002'])).toBe('#000002');
-    expect(categoryColor(9, undefined, undefined)).toBe(PALETTE[1]);
+    expect(categoryColor(10, undefined, undefined)).toBe(PALETTE[1]);
   });
 });
 

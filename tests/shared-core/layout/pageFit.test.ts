@@ -1,0 +1,143 @@
+// Charts fit their page: every mode on common sheets and a tiny label, with 3, 10 and 16 categories, keeps its
+// marks, labels, key, title and source inside the margins without overlaps, or is refused before anything is
+// written with a sentence that says what to change. Sheet sizes from ISO 216 (A4 210 x 297 mm, A5 148 x 210 mm).
+import { describe, expect, it } from 'vitest';
+import { parseChart, type ChartDocument } from '../../../shared-core/document';
+import { isTallyError } from '../../../shared-core/errors';
+import { layoutChart } from '../../../shared-core/layout';
+import { renderChart } from '../../../shared-core/pipeline/renderChart';
+import type { Scene } from '../../../shared-core/scene';
+import { caught } from '../../helpers/errors';
+import { drawnBoxes, pageFitProblems } from './pageFit';
+
+// Invented stations of an invented town; values chosen to give remainders and a wide range.
+const LABELS = ['Harbour Gate', 'Mill Lane', 'Old Market', 'Station Square', 'Quarry Hill', 'Ferry Steps', 'Tanners Row', 'Bell Yard', 'Copper Street', 'Lantern Walk', 'North Pier', 'Rope Walk', 'Saltmarsh', 'Weavers Close', 'Kiln Lane', 'Orchard End'];
+const VALUES = [42, 27.5, 61, 13.5, 35, 8, 52, 19, 30, 4.5, 47, 23, 16, 39, 11, 26];
+const PAGES: Record<string, { width: number; height: number }> = {
+  'A5 landscape': { width: 210, height: 148 },
+  'A4 portrait': { width: 210, height: 297 },
+  '180 x 120 mm': { width: 180, height: 120 },
+  '40 x 30 mm': { width: 40, height: 30 },
+};
+const MODES: Record<string, ChartDocument['encoding']> = {
+  repeat: { mode: 'repeat', glyph: 'bike', unitName: 'rides' },
+  'shared grid': { mode: 'repeat', glyph: 'person', arrangement: 'shared-grid', unitName: 'people' },
+  stack: { mode: 'stack', glyph: 'coffee', unitName: 'cups' },
+  scale: { mode: 'scale', glyph: 'tree', unitName: 'trees' },
+  fill: { mode: 'fill', glyph: 'drop', unitName: 'litres' },
+};
+
+function chart(encoding: ChartDocument['encoding'], page: { width: number; height: number }, n: number): ChartDocument {
+  return {
+    format: 'tallyglyph.chart/1',
+    title: `Rides per station (${n})`,
+    source: 'Invented demo data',
+    data: LABELS.slice(0, n).map((label, i) => ({ label, value: VALUES[i] })),
+    encoding,
+    page: { ...page, unit: 'mm' },
+  };
+}
+
+describe('every mode fits the page or is refused before export', () => {
+  for (const [pageName, page] of Object.entries(PAGES)) {
+    for (const [modeName, encoding] of Object.entries(MODES)) {
+      for (const n of [3, 10, 16]) {
+        it(`${modeName}, ${n} categories, ${pageName}`, { timeout: 60_000 }, () => {
+          const spec = parseChart(chart(encoding, page, n));
+          let scene: Scene;
+          try {
+            scene = layoutChart(spec);
+          } catch (e) {
+            expect(isTallyError(e)).toBe(true);
+            const err = e as { code: string; message: string };
+            if (modeName === 'shared grid' && n > 9) {
+              // More categories than distinguishable colours, where colour alone tells them apart.
+              expect(err.code).toBe('data-invalid');
+              expect(err.message).toMatch(/colour-vision deficiency/);
+              return;
+            }
+            // Only the tiny page may leave no room; the refusal says what to change.
+            expect(pageName).toBe('40 x 30 mm');
+            expect(err.code).toBe('layout-no-room');
+            expect(err.message).toMatch(/bigger page/);
+            return;
+          }
+          expect(pageFitProblems(scene, spec)).toEqual([]);
+        });
+      }
+    }
+  }
+});
+
+describe('the ten-row stack on 180 x 120 mm', () => {
+  // People in ten invented households' groups; the first label is long and has a long word.
+  const values = [100, 100, 50, 25, 12, 6, 3, 2, 1, 1];
+  const tenRows = (unit?: number): ChartDocument => ({
+    format: 'tallyglyph.chart/1',
+    title: 'Who lives where',
+    source: 'Invented demo data',
+    data: values.map((value, i) => ({ label: i === 0 ? 'Intergenerational households of the northern quarter' : `Group ${i + 1}`, value })),
+    encoding: { mode: 'stack', glyph: 'person', unitName: 'people', ...(unit !== undefined ? { unit } : {}) },
+    page: { width: 180, height: 120, unit: 'mm' },
+  });
+
+  it('exports and re-verifies with the unit chosen automatically, everything inside the margins', { timeout: 60_000 }, () => {
+    const result = renderChart(tenRows());
+    expect(result.report.pass).toBe(true);
+    expect(pageFitProblems(result.scene, result.spec)).toEqual([]);
+    expect(result.scene.texts.filter((t) => t.role === 'label').length).toBeGreaterThanOrEqual(10);
+  });
+
+  it('refuses one glyph per person before verifying, saying there is no room and what to change', () => {
+    // 100 glyphs in a column cannot stand in about 80 mm at a legible glyph size.
+    const e = caught(() => renderChart(tenRows(1)));
+    expect(e.code).toBe('layout-no-room');
+    expect(e.message).toMatch(/legible size/);
+    expect(e.message).toMatch(/bigger page/);
+    expect(e.message).toMatch(/larger unit \((\d+) or more per glyph\)/);
+    expect(e.message).not.toMatch(/edited by hand/);
+  });
+});
+
+describe('tiny pages', () => {
+  it('refuses a 40 x 30 mm page with 10 mm margins in every mode, quickly, instead of drawing outside the page', () => {
+    // A time bound only to prove the search cannot hang on a box with no room (it used to loop at size 0).
+    const start = Date.now();
+    for (const encoding of Object.values(MODES)) {
+      const e = caught(() => layoutChart(parseChart(chart(encoding, PAGES['40 x 30 mm'], 3))));
+      expect(e.code).toBe('layout-no-room');
+    }
+    expect(Date.now() - start).toBeLessThan(30_000);
+  });
+
+  it('fits a 40 x 30 mm page with 2 mm margins and no title when the data are small', () => {
+    const doc: ChartDocument = { format: 'tallyglyph.chart/1', data: [{ label: 'A', value: 3 }, { label: 'B', value: 5 }], encoding: { mode: 'repeat', glyph: 'bike', unit: 1 }, layout: { margins: 2 }, page: { width: 40, height: 30, unit: 'mm' } };
+    const spec = parseChart(doc);
+    expect(pageFitProblems(layoutChart(spec), spec)).toEqual([]);
+  });
+});
+
+describe('composition uses the page', () => {
+  // Common practice, no source: a chart block is centred in the room it is given rather than left in a corner.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'] })) {
+    for (const [modeName, encoding] of Object.entries(MODES)) {
+      it(`${modeName} with 3 categories on ${pageName} is centred in the content box`, { timeout: 60_000 }, () => {
+        const spec = parseChart(chart(encoding, page, 3));
+        const scene = layoutChart(spec);
+        // The chart block: everything drawn but the title and the source line.
+        const block = drawnBoxes(scene).filter((d) => !/^(title|source) text/.test(d.what)).map((d) => d.box);
+        const minX = Math.min(...block.map((b) => b.x));
+        const maxX = Math.max(...block.map((b) => b.x + b.width));
+        const minY = Math.min(...block.map((b) => b.y));
+        const maxY = Math.max(...block.map((b) => b.y + b.height));
+        const m = spec.layout.margins;
+        const widthMm = spec.page.widthMm - m.left - m.right;
+        const centreX = m.left + widthMm / 2;
+        // The block's centre sits within a tenth of the width of the content box's centre.
+        expect(Math.abs((minX + maxX) / 2 - centreX)).toBeLessThan(widthMm / 10);
+        // And the block is not confined to the top: its centre is below the upper third of the page.
+        expect((minY + maxY) / 2).toBeGreaterThan(spec.page.heightMm / 3 - 1e-9);
+      });
+    }
+  }
+});
