@@ -77,3 +77,29 @@ export function meterPosition(value: number, limits: { low: number; high: number
 export function inkPixels(inkMm2: number, ppi: number): number {
   return inkMm2 * (ppi / 25.4) ** 2;
 }
+
+/** A ratio inside the effect formula: 2 decimals, 4 when 2 would hide how far it is from 1. */
+function ratioInFormula(value: number): string {
+  const digits = value !== 1 && Math.abs(value - 1) < 0.005 ? 4 : 2;
+  return Number(value.toFixed(digits)).toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
+}
+
+/**
+ * The lie factor written out the way it is computed, so a reader can redo it: Tufte's effect form
+ * (The Visual Display of Quantitative Information, 1983, p. 57), (shown ratio − 1) ÷ (data ratio − 1),
+ * or the ratio form, shown ratio ÷ data ratio, used when the values differ by less than 2%.
+ */
+export function effectFormula(graphicRatio: number, dataRatio: number, basis: 'effect' | 'ratio'): string {
+  if (!Number.isFinite(graphicRatio) || !Number.isFinite(dataRatio)) return '';
+  if (basis === 'ratio') return `${ratioInFormula(graphicRatio)} ÷ ${ratioInFormula(dataRatio)}`;
+  return `(${ratioInFormula(graphicRatio)} − 1) ÷ (${ratioInFormula(dataRatio)} − 1)`;
+}
+
+/** The row's effect formula against the reference row, or null when there is nothing to compare. */
+export function rowFormula(
+  row: { graphic: number; value: number; lieFactor: number | null; basis: 'effect' | 'ratio' | null },
+  reference: { graphic: number; value: number } | undefined,
+): string | null {
+  if (!reference || row.lieFactor === null || row.basis === null || !(reference.graphic > 0) || !(reference.value > 0)) return null;
+  return effectFormula(row.graphic / reference.graphic, row.value / reference.value, row.basis) || null;
+}
