@@ -124,7 +124,11 @@ export function GlyphPicker({ value, onChoose: choose, onClose: close, onClear: 
           value={query}
           onChange={(e) => setQuery(e.target.value)}
           onKeyDown={(e) => {
-            if (e.key === 'Enter' && results[0]) onChoose(results[0].name);
+            if (e.key === 'Enter' && results[0]) {
+              // Otherwise the Enter's keypress lands on the glyph button, which gets focus back, and reopens the picker.
+              e.preventDefault();
+              onChoose(results[0].name);
+            }
           }}
           aria-label="Search glyphs"
         />

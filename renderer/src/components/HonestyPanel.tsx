@@ -200,10 +200,10 @@ function CheckedDetails({ honesty, current, ppi, fixes }: { honesty: HonestyView
           <thead>
             <tr>
               <th scope="col">Category</th>
-              <th scope="col" className="num">Value</th>
-              <th scope="col" className="num">{DRAWN_HEADINGS[unitWord]}</th>
-              <th scope="col" className="num">Lie factor</th>
-              <th scope="col"><span className="sr-only">Position in the allowed band</span></th>
+              <th scope="col" className="num col-value">Value</th>
+              <th scope="col" className="num col-drawn">{DRAWN_HEADINGS[unitWord]}</th>
+              <th scope="col" className="num col-factor">Lie factor</th>
+              <th scope="col" className="col-meter"><span className="sr-only">Position in the allowed band</span></th>
             </tr>
           </thead>
           <tbody>
@@ -211,7 +211,7 @@ function CheckedDetails({ honesty, current, ppi, fixes }: { honesty: HonestyView
               const outside = r.lieFactor !== null && (r.lieFactor < limits.low || r.lieFactor > limits.high);
               return (
                 <tr key={r.label} className={[r.isWorst ? 'worst' : '', outside || r.problem ? 'outside' : ''].join(' ').trim() || undefined} data-label={r.label}>
-                  <th scope="row">{r.label}</th>
+                  <th scope="row" title={r.label}>{r.label}</th>
                   <td className="num">{formatValue(r.value)}</td>
                   <td className="num" title={formatGraphic(r.graphic, r.graphicUnit)}>{formatDrawn(r.graphic, r.graphicUnit)}</td>
                   <td className="num factor" data-testid={testId('row-factor', current)} title={rowTitle(r, referenceRow)}>

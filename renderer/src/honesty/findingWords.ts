@@ -38,10 +38,9 @@ const SHORT_BY_CODE: Record<string, string> = {
   overflow: 'the chart does not fit the page',
   'content-overflow': 'the chart does not fit the page',
   'summary-mismatch': 'the file does not match its data',
-  'file-mismatch': 'the file does not match its data',
 };
 
-const PILL_MAX_CHARS = 56;
+const PILL_MAX_CHARS = 64;
 
 /** The first blocking finding in a few words, for the toolbar: what actually stops the export. */
 export function shortReason(finding: { code: string; message: string; category?: string }, lieFactorText: string | null): string {

@@ -78,9 +78,10 @@ export function inkPixels(inkMm2: number, ppi: number): number {
   return inkMm2 * (ppi / 25.4) ** 2;
 }
 
-/** A ratio inside the effect formula: 2 decimals, 4 when 2 would hide how far it is from 1. */
+/** A ratio inside the formula: at least 2 decimals, and enough that its distance from 1 keeps 2 significant digits. */
 function ratioInFormula(value: number): string {
-  const digits = value !== 1 && Math.abs(value - 1) < 0.005 ? 4 : 2;
+  const distance = Math.abs(value - 1);
+  const digits = distance > 0 ? Math.min(6, Math.max(2, Math.ceil(-Math.log10(distance)) + 1)) : 2;
   return Number(value.toFixed(digits)).toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
 }
 
