@@ -50,6 +50,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const [notice, setNotice] = useState<Notice | null>(null);
   const [recent, setRecent] = useState<RecentChart[] | null>(null);
   const [working, setWorking] = useState<string | null>(null);
+  /** After an open or a demo load, until this chart is first checked: the last check and preview are another chart's. */
+  const [checksBelongToOtherChart, setChecksBelongToOtherChart] = useState(false);
   const noticeId = useRef(0);
   const recentWrap = useRef<HTMLDivElement>(null);
 
@@ -92,8 +94,11 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const conversion = useMemo(() => toChartDocument(doc), [doc]);
   const render = useChartRender(conversion.document);
   const currentKey = useMemo(() => keyOfDocument(conversion.document), [conversion.document]);
-  const outcome = render.outcome;
-  const current = outcome !== null && currentKey !== null && render.outcomeKey === currentKey;
+  const current = render.outcome !== null && currentKey !== null && render.outcomeKey === currentKey;
+  useEffect(() => {
+    if (current) setChecksBelongToOtherChart(false);
+  }, [current]);
+  const outcome = checksBelongToOtherChart && !current ? null : render.outcome;
 
   // Problems from the document check (after the table's own), tied to cells where they name one.
   const rowProblems: RowProblem[] = useMemo(() => {
@@ -187,6 +192,9 @@ export function App({ host }: { host: HostApi }): ReactElement {
 
   const previewSvg = outcome?.kind === 'checked' ? outcome.svg : null;
   const overlay: Parameters<typeof Preview>[0]['overlay'] = (() => {
+    if (tableProblems.length > 0 && !outcome) {
+      return { tone: 'stale', title: 'Nothing drawn yet', text: onlyGlyphProblems ? 'Choose a bundled glyph (Glyph button) to draw this chart.' : 'Fix the highlighted cells to draw this chart.' };
+    }
     if (tableProblems.length > 0) {
       return { tone: 'stale', title: 'Showing the last valid chart', text: onlyGlyphProblems ? 'Choose a bundled glyph (Glyph button) to update it.' : 'Fix the highlighted cells to update it.' };
     }
@@ -258,6 +266,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
       // A fresh history: undo must not bring back the previous chart under this file's id,
       // or Save would write that chart over this file.
       send({ type: 'reset', document: next });
+      setChecksBelongToOtherChart(true);
       setFile({ documentId, name, demoId: null });
       setSavedDoc(next);
       say(`Opened ${name}.`);
@@ -281,6 +290,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
       if (!demo || !mayReplace('Load the demo')) return;
       const next = fromChartDocument(demo.document);
       send({ type: 'reset', document: next });
+      setChecksBelongToOtherChart(true);
       setFile({ documentId: null, name: demo.name, demoId: demo.id });
       setSavedDoc(next);
     },

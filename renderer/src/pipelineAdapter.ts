@@ -113,6 +113,8 @@ export function readableUnitsBelow(unit: number, count: number): number[] {
 
 /** How many smaller units are tried: each try is a whole layout, write and verification. */
 const UNIT_TRIES = 6;
+/** The refusal waits for the offers, so the search stops once it has cost this long (a smaller unit means more glyphs to verify). */
+const OFFER_BUDGET_MS = 2500;
 
 function passes(doc: unknown): boolean {
   try {
@@ -135,8 +137,10 @@ function fixOffers(doc: unknown, honesty: HonestyView, unit: { value: number } |
   const offers: FixOffers = {};
   if (base.encoding.rounding === 'whole' && passes({ ...base, encoding: { ...base.encoding, rounding: 'ink-cut' } })) offers.inkCut = true;
   const current = typeof base.encoding.unit === 'number' ? base.encoding.unit : unit?.value;
+  const started = performance.now();
   if (current !== undefined && current > 0) {
     for (const candidate of readableUnitsBelow(current, UNIT_TRIES)) {
+      if (performance.now() - started > OFFER_BUDGET_MS) break;
       if (passes({ ...base, encoding: { ...base.encoding, unit: candidate } })) {
         offers.unit = candidate;
         break;

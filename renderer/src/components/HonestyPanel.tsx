@@ -78,7 +78,8 @@ function Verdict({ honesty, current, fixes }: { honesty: HonestyView; current: b
   const reason = toUiWords(first?.message ?? honesty.reason ?? honesty.problems[0] ?? 'It did not pass the check.');
   // The fix of each finding is its own; general suggestions only add what the findings do not say.
   const ownFixes = new Set(blocking.map((f) => f.fix));
-  const suggestions = honesty.suggestions.filter((sg) => !ownFixes.has(sg)).map(toUiWords);
+  // "Or use a smaller unit" reads oddly once the sentence it followed is shown as the fix above.
+  const suggestions = honesty.suggestions.filter((sg) => !ownFixes.has(sg)).map((sg) => toUiWords(sg).replace(/^Or (\w)/, (_, c: string) => c.toUpperCase()));
   return (
     <div className={current ? 'verdict refused' : 'verdict refused stale'} data-testid="verdict" data-verdict="refused" data-current={current} role="alert">
       <div className="verdict-head">
