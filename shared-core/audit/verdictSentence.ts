@@ -26,10 +26,18 @@ const READ_AS: Record<ReadingName, string> = {
  */
 export function lieFactorFormula(pair: { graphicRatio: number | null; dataRatio: number; basis: 'effect' | 'ratio'; lieFactor: number | null }): string | null {
   if (pair.graphicRatio === null || pair.lieFactor === null || !Number.isFinite(pair.graphicRatio) || !Number.isFinite(pair.dataRatio)) return null;
-  const g = formatRatio(pair.graphicRatio);
-  const d = formatRatio(pair.dataRatio);
-  if (pair.basis === 'ratio') return `${g} ÷ ${d} = ${formatFactor(pair.lieFactor)} (ratio form: the values differ by less than 2%)`;
-  return `(${g} − 1) ÷ (${d} − 1) = ${formatFactor(pair.lieFactor)}`;
+  const shown = formatFactor(pair.lieFactor);
+  const form = (g: number, d: number) => (pair.basis === 'ratio' ? g / d : (g - 1) / (d - 1));
+  // The ratios as the report rounds them, with more significant digits where the division written
+  // out with fewer would not give the figure shown.
+  let g = formatRatio(pair.graphicRatio);
+  let d = formatRatio(pair.dataRatio);
+  for (let digits = 4; digits <= 8 && formatFactor(form(Number(g), Number(d))) !== shown; digits++) {
+    g = String(Number(pair.graphicRatio.toPrecision(digits)));
+    d = String(Number(pair.dataRatio.toPrecision(digits)));
+  }
+  if (pair.basis === 'ratio') return `${g} ÷ ${d} = ${shown} (ratio form: the values differ by less than 2%)`;
+  return `(${g} − 1) ÷ (${d} − 1) = ${shown}`;
 }
 
 export function verdictSentence(result: ReadingResult, marks: readonly { id: string; label: string; value: number }[]): string {

@@ -56,6 +56,10 @@ describe('effectFormula', () => {
     expect(2 / 2.75).toBeCloseTo(0.727, 3);
     // Close values use the ratio form, and keep enough digits to show how far from 1 they are.
     expect(effectFormula(1.012, 1.01, 'ratio')).toBe('1.012 ÷ 1.01');
+    // Enough decimals that the division written out gives the figure shown: 2 / (2.04 - 1) = 1.923,
+    // but 275/135 = 2.0370 and 2 / 1.037 = 1.929, the lie factor itself.
+    expect(effectFormula(3, 275 / 135, 'effect')).toBe('(3 − 1) ÷ (2.037 − 1)');
+    expect((2 / (275 / 135 - 1)).toFixed(3)).toBe('1.929');
   });
 
   it('takes a row against the reference row', () => {
