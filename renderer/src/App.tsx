@@ -96,8 +96,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const currentKey = useMemo(() => keyOfDocument(conversion.document), [conversion.document]);
   const current = render.outcome !== null && currentKey !== null && render.outcomeKey === currentKey;
   useEffect(() => {
-    if (current) setChecksBelongToOtherChart(false);
-  }, [current]);
+    if (current && checksBelongToOtherChart) setChecksBelongToOtherChart(false);
+  }, [current, checksBelongToOtherChart]);
   const outcome = checksBelongToOtherChart && !current ? null : render.outcome;
 
   // Problems from the document check (after the table's own), tied to cells where they name one.
