@@ -21,7 +21,8 @@ export function auditSupplied(file: SuppliedFile, opts: AuditFileOptions = {}): 
   if (opts.markIds && opts.markIds.length) throw new TallyError('usage', 'Mark ids (--marks) only apply to SVG files; pick marks in an image with seed points (--seed x,y).');
   const found = findRasterMarks(file.image, opts.rasterMarks);
   const marks = applyGivenLengths(found.marks, opts.givenLengths);
-  const values = resolveValues(marks, toValueSpec(opts.values), []);
+  // An image has no element ids: the advice names the options that pick marks in pixels.
+  const values = resolveValues(marks, toValueSpec(opts.values), [], 'image-seeds');
   return auditMarks({ source: 'raster', unit: 'pixel', marks, values, setAside: found.setAside, solid: opts.solid, warnings: [] });
 }
 

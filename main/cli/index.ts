@@ -1,4 +1,5 @@
 // Entry of `tallyglyph <command>`: finds the command, runs it, turns errors into one plain line.
+import fs from 'node:fs';
 import { pathToFileURL } from 'node:url';
 import { isTallyError } from '../../shared-core/errors';
 import { EXIT, type CliCommand, type CliIO } from './types';
@@ -17,19 +18,42 @@ export async function loadCommand(name: string): Promise<CliCommand | null> {
   }
 }
 
+const HELP_USAGE = `Usage: tallyglyph help [<command>]
+
+Without a command, lists every command with one line on what it does. With one, prints that
+command's options; \`tallyglyph <command> --help\` does the same.
+\`tallyglyph --version\` prints the version.
+
+Exit status: 0 help was printed, 2 the command is unknown.
+`;
+
+/** The version in package.json, the one npm installs and publishes. */
+export function cliVersion(): string {
+  const pkg = JSON.parse(fs.readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as { version?: unknown };
+  return typeof pkg.version === 'string' ? pkg.version : 'unknown';
+}
+
 async function helpText(): Promise<string> {
   const lines = ['Tallyglyph: honest pictogram and unit charts, checked before they leave the building.', '', 'Usage: tallyglyph <command> [options]', '', 'Commands:'];
   for (const name of COMMAND_NAMES) {
     const cmd = await loadCommand(name);
     if (cmd) lines.push(`  ${name.padEnd(9)} ${cmd.summary}`);
   }
-  lines.push('', 'Run `tallyglyph help <command>` for a command\'s options.');
+  lines.push('', 'Run `tallyglyph help <command>` for a command\'s options, `tallyglyph --version` for the version.');
   return lines.join('\n') + '\n';
 }
 
 export async function main(argv: string[], io: CliIO): Promise<number> {
   const [name, ...rest] = argv;
+  if (name === '--version' || name === '-V') {
+    io.stdout(`tallyglyph ${cliVersion()}\n`);
+    return EXIT.ok;
+  }
   if (!name || name === '--help' || name === '-h' || name === 'help') {
+    if (name === 'help' && rest[0] === 'help') {
+      io.stdout(HELP_USAGE);
+      return EXIT.ok;
+    }
     if (name === 'help' && rest[0]) {
       const cmd = await loadCommand(rest[0]);
       if (!cmd) {

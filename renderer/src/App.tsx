@@ -8,12 +8,13 @@ import { ACTION_NAMES, type Action } from './editor/actions';
 import { documentStem, fromChartDocument, rowForProblemPath, toChartDocument, type EditorDocument, type RowProblem } from './editor/editorDocument';
 import { canRedo, canUndo, createHistory, historyReducer } from './editor/history';
 import { demoCharts, defaultPalette } from './demoCharts';
-import { formatFactor } from './honesty/formatHonesty';
+import { shortReason, toUiWords } from './honesty/findingWords';
+import { formatFactor, formatValue } from './honesty/formatHonesty';
 import { keyOfDocument, useChartRender } from './render/useChartRender';
 import { isMacPlatform, shortcutCommand, shortcutLabel } from './shortcuts';
 import { DataTable } from './components/DataTable';
 import { DrawingPanel } from './components/DrawingPanel';
-import { HonestyPanel, type HonestyState } from './components/HonestyPanel';
+import { HonestyPanel, type HonestyState, type OneClickFix } from './components/HonestyPanel';
 import { BrandMark, Icon } from './components/Icon';
 import { PagePanel } from './components/PagePanel';
 import { Preview } from './components/Preview';
@@ -49,6 +50,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const [notice, setNotice] = useState<Notice | null>(null);
   const [recent, setRecent] = useState<RecentChart[] | null>(null);
   const [working, setWorking] = useState<string | null>(null);
+  /** After an open or a demo load, until this chart is first checked: the last check and preview are another chart's. */
+  const [checksBelongToOtherChart, setChecksBelongToOtherChart] = useState(false);
   const noticeId = useRef(0);
   const recentWrap = useRef<HTMLDivElement>(null);
 
@@ -91,8 +94,11 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const conversion = useMemo(() => toChartDocument(doc), [doc]);
   const render = useChartRender(conversion.document);
   const currentKey = useMemo(() => keyOfDocument(conversion.document), [conversion.document]);
-  const outcome = render.outcome;
-  const current = outcome !== null && currentKey !== null && render.outcomeKey === currentKey;
+  const current = render.outcome !== null && currentKey !== null && render.outcomeKey === currentKey;
+  useEffect(() => {
+    if (current && checksBelongToOtherChart) setChecksBelongToOtherChart(false);
+  }, [current, checksBelongToOtherChart]);
+  const outcome = checksBelongToOtherChart && !current ? null : render.outcome;
 
   // Problems from the document check (after the table's own), tied to cells where they name one.
   const rowProblems: RowProblem[] = useMemo(() => {
@@ -114,6 +120,9 @@ export function App({ host }: { host: HostApi }): ReactElement {
     ...conversion.otherProblems,
   ];
 
+  // An opened document may name a glyph this build does not bundle: say so, not "fix the table".
+  const onlyGlyphProblems = tableProblems.length > 0 && conversion.rowProblems.every((p) => p.field === 'glyph') && conversion.otherProblems.length === (conversion.chartGlyphProblem ? 1 : 0);
+
   const exportSvgText = current && outcome?.kind === 'checked' && outcome.honesty.pass ? outcome.svg : null;
 
   const exportBlock: string | null = (() => {
@@ -122,7 +131,10 @@ export function App({ host }: { host: HostApi }): ReactElement {
     if (!outcome) return 'Checking the chart…';
     if (outcome.kind === 'invalid') return `The chart document has a problem: ${outcome.message}`;
     if (outcome.kind === 'failed') return outcome.message;
-    if (!outcome.honesty.pass) return `Export is blocked: ${outcome.honesty.reason ?? 'the chart did not pass the honesty check.'}`;
+    if (!outcome.honesty.pass) {
+      const first = outcome.honesty.findings.find((f) => f.severity === 'blocking');
+      return `Export is blocked: ${toUiWords(first?.message ?? outcome.honesty.reason ?? 'the chart did not pass the honesty check.')}`;
+    }
     if (!outcome.svg) return 'The chart could not be written.';
     return null;
   })();
@@ -136,23 +148,56 @@ export function App({ host }: { host: HostApi }): ReactElement {
     if (outcome?.kind === 'checked' && !outcome.honesty.pass) {
       const worst = outcome.honesty.worst;
       // formatFactor, as the panel shows it: never rounded to a figure on the wrong side of a limit.
-      return worst ? `lie factor ${formatFactor(worst.lieFactor, outcome.honesty.limits)}` : 'failed the honesty check';
+      const factor = worst && worst.lieFactor !== null ? formatFactor(worst.lieFactor, outcome.honesty.limits) : null;
+      // The pill names what actually blocks: the first blocking finding, not always the lie factor.
+      const first = outcome.honesty.findings.find((f) => f.severity === 'blocking');
+      if (first) return shortReason(first, factor);
+      return factor ? `lie factor ${factor}` : 'failed the honesty check';
     }
     return null;
   })();
 
   const honestyState: HonestyState = (() => {
     const previous = outcome?.kind === 'checked' ? outcome.honesty : null;
-    if (tableProblems.length > 0) return { kind: 'waiting', title: 'Waiting for the table', problems: tableProblems, previous };
+    if (tableProblems.length > 0) return { kind: 'waiting', title: onlyGlyphProblems ? 'Unknown glyph' : 'Waiting for the table', problems: tableProblems, previous };
     if (!outcome) return { kind: 'pending' };
     if (outcome.kind === 'invalid') return current ? { kind: 'waiting', title: 'The chart document has a problem', problems: outcome.problems.length ? outcome.problems.map((p) => `${p.path}: ${p.message}`) : [outcome.message], previous: null } : { kind: 'pending' };
     if (outcome.kind === 'failed') return { kind: 'failed', title: 'The chart could not be drawn', message: outcome.message };
     return { kind: 'checked', honesty: outcome.honesty, current };
   })();
 
+  // One-click remedies: the verifier's own actions where the app knows how to apply them, then the
+  // remedies the render worker tried and found to pass.
+  const oneClickFixes: OneClickFix[] = (() => {
+    if (!current || outcome?.kind !== 'checked' || outcome.honesty.pass) return [];
+    const out: OneClickFix[] = [];
+    const unitName = doc.encoding.unitName?.trim();
+    const add = (fix: OneClickFix) => {
+      if (!out.some((f) => f.label === fix.label)) out.push(fix);
+    };
+    for (const f of outcome.honesty.findings) {
+      if (f.severity !== 'blocking' || !f.action) continue;
+      const action = editorActionFor(f.action);
+      if (action) add({ label: toUiWords(f.action.label), title: toUiWords(f.fix), apply: () => dispatch(action) });
+    }
+    if (outcome.offers?.inkCut) {
+      add({ label: 'Cut by ink', title: 'Show remainders as partial glyphs cut by ink, so a remainder of 0.4 shows 40% of a glyph’s ink. Checked: the chart then passes.', apply: () => dispatch({ type: 'set-rounding', rounding: 'ink-cut' }) });
+    }
+    const unit = outcome.offers?.unit;
+    if (unit !== undefined) {
+      add({ label: `Use ${formatValue(unit)}${unitName ? ` ${unitName}` : ''} per glyph`, title: `One glyph stands for ${formatValue(unit)} instead; rounding then changes each amount less. Checked: the chart then passes.`, apply: () => dispatch({ type: 'set-unit', unit }) });
+    }
+    return out;
+  })();
+
   const previewSvg = outcome?.kind === 'checked' ? outcome.svg : null;
   const overlay: Parameters<typeof Preview>[0]['overlay'] = (() => {
-    if (tableProblems.length > 0) return { tone: 'stale', title: 'Showing the last valid chart', text: 'Fix the highlighted cells to update it.' };
+    if (tableProblems.length > 0 && !outcome) {
+      return { tone: 'stale', title: 'Nothing drawn yet', text: onlyGlyphProblems ? 'Choose a bundled glyph (Glyph button) to draw this chart.' : 'Fix the highlighted cells to draw this chart.' };
+    }
+    if (tableProblems.length > 0) {
+      return { tone: 'stale', title: 'Showing the last valid chart', text: onlyGlyphProblems ? 'Choose a bundled glyph (Glyph button) to update it.' : 'Fix the highlighted cells to update it.' };
+    }
     if (outcome?.kind === 'failed') return { tone: 'error', title: 'The chart could not be drawn', text: outcome.message };
     if (outcome?.kind === 'invalid' && current) return { tone: 'error', title: 'The chart document has a problem', text: outcome.message };
     if (outcome?.kind === 'checked' && !outcome.honesty.pass) return { tone: 'refused', title: 'Refused: not exportable', text: 'This is the file as written; the honesty check explains what is wrong.' };
@@ -221,6 +266,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
       // A fresh history: undo must not bring back the previous chart under this file's id,
       // or Save would write that chart over this file.
       send({ type: 'reset', document: next });
+      setChecksBelongToOtherChart(true);
       setFile({ documentId, name, demoId: null });
       setSavedDoc(next);
       say(`Opened ${name}.`);
@@ -244,6 +290,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
       if (!demo || !mayReplace('Load the demo')) return;
       const next = fromChartDocument(demo.document);
       send({ type: 'reset', document: next });
+      setChecksBelongToOtherChart(true);
       setFile({ documentId: null, name: demo.name, demoId: demo.id });
       setSavedDoc(next);
     },
@@ -289,9 +336,12 @@ export function App({ host }: { host: HostApi }): ReactElement {
     return () => window.removeEventListener('beforeunload', onBeforeUnload);
   }, [dirty]);
 
+  // A chart not yet saved to a file is known by its title, so a rename shows at once; a saved one by its file name.
+  const displayName = file.documentId === null && doc.title.trim() !== '' ? doc.title.trim() : file.name;
+
   useEffect(() => {
-    document.title = `${dirty ? '• ' : ''}${file.name} — Tallyglyph`;
-  }, [dirty, file.name]);
+    document.title = `${dirty ? '• ' : ''}${displayName} — Tallyglyph`;
+  }, [dirty, displayName]);
 
   useEffect(() => {
     if (!notice) return;
@@ -313,8 +363,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
           <BrandMark />
           <span className="brand-name">Tallyglyph</span>
         </div>
-        <div className="doc-name" title={file.name} data-testid="doc-name">
-          <span className="doc-name-text">{file.name}</span>
+        <div className="doc-name" title={displayName} data-testid="doc-name">
+          <span className="doc-name-text">{displayName}</span>
           {dirty && <span className="dirty-dot" title="Unsaved changes" aria-label="Unsaved changes" />}
         </div>
         <div className="toolbar-group demo-group">
@@ -322,11 +372,15 @@ export function App({ host }: { host: HostApi }): ReactElement {
             <span>Demo</span>
             <select value={file.demoId ?? ''} onChange={(e) => loadDemo(e.target.value)} aria-label="Demo chart" data-testid="demo-picker">
               {file.demoId === null && <option value="">Choose a demo…</option>}
-              {demos.map((d) => (
-                <option key={d.id} value={d.id} title={d.name}>
-                  {demoLabel(d.id, d.document)}
-                </option>
-              ))}
+              {demos.map((d) => {
+                // The demo being edited shows its current title, renamed or not.
+                const renamed = d.id === file.demoId && displayName !== d.name ? displayName : null;
+                return (
+                  <option key={d.id} value={d.id} title={renamed ?? d.name}>
+                    {renamed ? `${modeName(d.document)} · ${renamed}` : demoLabel(d.id, d.document)}
+                  </option>
+                );
+              })}
             </select>
           </label>
         </div>
@@ -455,7 +509,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
 
         <Preview svg={previewSvg} busy={render.busy || working !== null} overlay={overlay} pageLabel={pageLabel} elapsedMs={current ? render.elapsedMs : null} />
 
-        <HonestyPanel state={honestyState} ppi={ppi} />
+        <HonestyPanel state={honestyState} ppi={ppi} fixes={oneClickFixes} />
       </main>
 
       <footer className="statusbar">
@@ -485,4 +539,19 @@ function demoLabel(id: string, doc: unknown): string {
 function modeName(doc: unknown): string {
   const mode = (doc as { encoding?: { mode?: string } }).encoding?.mode ?? '';
   return mode ? mode[0].toUpperCase() + mode.slice(1) : 'Chart';
+}
+
+/** The editor action for a verifier's fix, when the app knows the kind and the payload is sound. */
+function editorActionFor(fix: { kind: string; payload?: Record<string, unknown> }): Action | null {
+  const p = fix.payload ?? {};
+  switch (fix.kind) {
+    case 'set-unit':
+      return typeof p.unit === 'number' && p.unit > 0 && Number.isFinite(p.unit) ? { type: 'set-unit', unit: p.unit } : null;
+    case 'set-rounding':
+      return p.rounding === 'ink-cut' || p.rounding === 'whole' ? { type: 'set-rounding', rounding: p.rounding } : null;
+    case 'set-mode':
+      return p.mode === 'repeat' || p.mode === 'stack' || p.mode === 'scale' || p.mode === 'fill' ? { type: 'set-mode', mode: p.mode } : null;
+    default:
+      return null;
+  }
 }

@@ -8,7 +8,7 @@ import type { VerifyReport } from '../../shared-core/integrity';
 import { layoutChart } from '../../shared-core/layout';
 import { renderChart } from '../../shared-core/pipeline';
 import { writeSvg } from '../../shared-core/svg';
-import type { HonestyRow, HonestyView, RenderOutcome } from './render/renderTypes';
+import type { FixOffers, HonestyRow, HonestyView, RenderOutcome } from './render/renderTypes';
 
 function honestyOf(report: VerifyReport): HonestyView {
   const pairs = new Map(report.lieFactor.pairs.map((p) => [p.label, p]));
@@ -40,6 +40,14 @@ function honestyOf(report: VerifyReport): HonestyView {
     spread: report.spread,
     reason: report.reason ?? null,
     problems: [...report.problems],
+    findings: (report.findings ?? []).map((f) => ({
+      code: f.code,
+      severity: f.severity,
+      message: f.message,
+      fix: f.fix,
+      ...(f.category !== undefined ? { category: f.category } : {}),
+      ...(f.action ? { action: { kind: f.action.kind, label: f.action.label, ...(f.action.payload ? { payload: { ...f.action.payload } } : {}) } } : {}),
+    })),
     suggestions: [...report.suggestions],
     notes: [...report.notes],
     preflight: report.preflight.map((f) => ({ code: f.code, message: f.message })),
@@ -75,7 +83,9 @@ export function renderDocument(doc: unknown): RenderOutcome {
       } catch {
         // Then there is nothing to show, only the report.
       }
-      return { kind: 'checked', svg, honesty: honestyOf(e.details), unit };
+      const honesty = honestyOf(e.details);
+      const offers = fixOffers(doc, honesty, unit);
+      return { kind: 'checked', svg, honesty, unit, ...(offers ? { offers } : {}) };
     }
     if (isTallyError(e) && (e.code === 'document-invalid' || e.code === 'document-version')) {
       const problems = Array.isArray(e.details) ? (e.details as { path: string; message: string }[]).map((p) => ({ path: String(p.path), message: String(p.message) })) : [];
@@ -88,4 +98,55 @@ export function renderDocument(doc: unknown): RenderOutcome {
 
 function unitOf(scene: { unitChoice?: { unit: number; chosen: boolean } }): { value: number; chosen: boolean } | null {
   return scene.unitChoice ? { value: scene.unitChoice.unit, chosen: scene.unitChoice.chosen } : null;
+}
+
+/** Readable units (1, 2, 2.5 or 5 times a power of ten) below `unit`, largest first. */
+export function readableUnitsBelow(unit: number, count: number): number[] {
+  const out: number[] = [];
+  for (let k = Math.floor(Math.log10(unit)) + 1; out.length < count && k > -12; k -= 1) {
+    for (const m of [5, 2.5, 2, 1]) {
+      const u = k >= 0 ? m * 10 ** k : m / 10 ** -k;
+      if (u < unit * (1 - 1e-9) && out.length < count) out.push(u);
+    }
+  }
+  return out;
+}
+
+/** How many smaller units are tried: each try is a whole layout, write and verification. */
+const UNIT_TRIES = 6;
+/** The refusal waits for the offers, so the search stops once it has cost this long (a smaller unit means more glyphs to verify). */
+const OFFER_BUDGET_MS = 2500;
+
+function passes(doc: unknown): boolean {
+  try {
+    return renderChart(doc).report.pass;
+  } catch {
+    return false;
+  }
+}
+
+/**
+ * Remedies for a chart refused on its lie factor in a counted mode: partial glyphs cut by ink, and
+ * the largest readable unit below the current one. Each is run through the same export chain and
+ * offered only when it passes, so a click never leads to a second refusal.
+ */
+function fixOffers(doc: unknown, honesty: HonestyView, unit: { value: number } | null): FixOffers | null {
+  if (honesty.mode !== 'repeat' && honesty.mode !== 'stack') return null;
+  if (!honesty.findings.some((f) => f.severity === 'blocking' && f.code.startsWith('lie-factor'))) return null;
+  const base = doc as { encoding?: Record<string, unknown> };
+  if (!base.encoding || typeof base.encoding !== 'object') return null;
+  const offers: FixOffers = {};
+  if (base.encoding.rounding === 'whole' && passes({ ...base, encoding: { ...base.encoding, rounding: 'ink-cut' } })) offers.inkCut = true;
+  const current = typeof base.encoding.unit === 'number' ? base.encoding.unit : unit?.value;
+  const started = performance.now();
+  if (current !== undefined && current > 0) {
+    for (const candidate of readableUnitsBelow(current, UNIT_TRIES)) {
+      if (performance.now() - started > OFFER_BUDGET_MS) break;
+      if (passes({ ...base, encoding: { ...base.encoding, unit: candidate } })) {
+        offers.unit = candidate;
+        break;
+      }
+    }
+  }
+  return offers.inkCut || offers.unit !== undefined ? offers : null;
 }

@@ -2,6 +2,7 @@
 // drawing is from the data under each reading, the data and the measurements, and what to do.
 import type { AuditReport } from './auditReport';
 import { formatFactor, formatMeasure } from './formatNumbers';
+import { lieFactorFormula } from './verdictSentence';
 import { READING_NAMES, type ReadingName } from './types';
 
 const SQUARE: Record<string, string> = { 'user unit': 'units²', pixel: 'px²' };
@@ -65,6 +66,17 @@ export function formatAuditReport(report: AuditReport, title?: string): string {
   lines.push(...table(rows));
   const countReading = report.readings.count;
   if (!countReading.available && countReading.unavailableReason) lines.push(`  count: ${countReading.unavailableReason}`);
+  // Each worst figure written out, so a reader can redo the division (Tufte's effect form, p. 57).
+  const formulas: string[] = [];
+  for (const name of READING_NAMES) {
+    const r = report.readings[name];
+    if (!r.available || !r.lieFactor.worstPair) continue;
+    const worst = r.lieFactor.worstPair;
+    const pair = r.lieFactor.pairs.find((p) => p.mark === worst.mark && p.reference === worst.reference);
+    const formula = pair ? lieFactorFormula(pair) : null;
+    if (formula) formulas.push(`    ${name}: ${formula}`);
+  }
+  if (formulas.length) lines.push('  Worst pair written out, (drawn ratio − 1) ÷ (value ratio − 1), each ratio against the smallest value:', ...formulas);
   lines.push('');
   lines.push('The data and the marks');
   const sq = SQUARE[report.unit] ?? 'units²';

@@ -51,18 +51,29 @@ export interface ResolvedValue {
   labelText?: string;
 }
 
+/** How the marks of a supplied graphic can be picked: by element id in an SVG, by a point inside each in an image. */
+export type MarkPicking = 'svg-ids' | 'image-seeds';
+
+const PICK_MARKS_HINT: Record<MarkPicking, string> = {
+  'svg-ids': 'Give one value per mark in document order, or name the marks (--values id=value,...) or pick them (--marks id,id).',
+  'image-seeds':
+    'Give one value per mark in reading order, or name the marks (--values mark-1=18,...), or pick the marks with a point inside each (--seed x,y, once per mark); ' +
+    '--tolerance and --gap change which pieces of the image count as one mark.',
+};
+
 /** One value per mark. The user's values win; then values recorded on the marks in the file; then labels paired with marks. */
 export function resolveValues(
   marks: readonly { id: string; fileValue?: number }[],
   spec: ValueSpec | null,
   pairings: readonly LabelPairing[],
+  picking: MarkPicking = 'svg-ids',
 ): ResolvedValue[] {
   if (spec?.kind === 'ordered') {
     if (spec.values.length !== marks.length) {
       throw new TallyError(
         'usage',
-        `${spec.values.length} value(s) were given but the graphic has ${marks.length} mark(s) (${marks.map((m) => m.id).join(', ').slice(0, 200)}). ` +
-          'Give one value per mark in document order, or name the marks (--values id=value,...) or pick them (--marks id,id).',
+        `${spec.values.length} value(s) were given but the ${picking === 'image-seeds' ? 'image' : 'graphic'} has ${marks.length} mark(s) (${marks.map((m) => m.id).join(', ').slice(0, 200)}). ` +
+          PICK_MARKS_HINT[picking],
       );
     }
     return spec.values.map((value) => ({ value, from: 'user' }));

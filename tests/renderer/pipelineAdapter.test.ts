@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEMO_CHARTS } from '../../shared-core/demo/demoCharts';
 import { renderChart } from '../../shared-core/pipeline';
-import { renderDocument } from '../../renderer/src/pipelineAdapter';
+import { readableUnitsBelow, renderDocument } from '../../renderer/src/pipelineAdapter';
 
 const count = (svg: string, re: RegExp) => (svg.match(re) ?? []).length;
 
@@ -28,4 +28,33 @@ describe('renderDocument on a refused chart', () => {
       });
     }
   }
+});
+
+describe('one-click offers for a refused chart', () => {
+  it('lists readable units (1, 2, 2.5 or 5 times a power of ten) below a unit, largest first', () => {
+    expect(readableUnitsBelow(100, 6)).toEqual([50, 25, 20, 10, 5, 2.5]);
+    expect(readableUnitsBelow(10, 3)).toEqual([5, 2.5, 2]);
+    expect(readableUnitsBelow(0.5, 2)).toEqual([0.25, 0.2]);
+  });
+
+  it('offers partial glyphs and a smaller unit, each of which passes when applied', () => {
+    const base = DEMO_CHARTS[0].document;
+    // 10 rides per whole glyph: Harbour Gate 42 glyphs against Station Square's 13.5 rounded to 14 (or 13):
+    // (42 - 14) / 14 over (420 - 135) / 135 = 0.947 (1.057 with 13), outside Tufte's 0.95-1.05 (p. 57).
+    const refused = { ...base, encoding: { ...base.encoding, unit: 10, rounding: 'whole' as const } };
+    const outcome = renderDocument(refused);
+    expect(outcome.kind).toBe('checked');
+    if (outcome.kind !== 'checked') return;
+    expect(outcome.honesty.pass).toBe(false);
+    expect(outcome.offers?.inkCut).toBe(true);
+    // 5 rides per glyph divides every value exactly (420, 275, 610, 135 -> 84, 55, 122, 27 glyphs).
+    expect(outcome.offers?.unit).toBe(5);
+    expect(renderChart({ ...refused, encoding: { ...refused.encoding, unit: 5 } }).report.pass).toBe(true);
+    expect(renderChart({ ...refused, encoding: { ...refused.encoding, rounding: 'ink-cut' } }).report.pass).toBe(true);
+  });
+
+  it('offers nothing for a chart that passes', () => {
+    const outcome = renderDocument(DEMO_CHARTS[0].document);
+    expect(outcome.kind === 'checked' && outcome.offers).toBeFalsy();
+  });
 });

@@ -22,6 +22,10 @@ Options:
   --gap <px>          pieces this close belong to one picture (images)
   --solid             the drawing is 3-D: flag the volume reading
   --json              print the report as JSON
+
+Exit status: 0 the suggested reading is faithful (lie factor within 0.95-1.05) or cannot be judged
+(the report says why), 1 the graphic distorts the data under the suggested reading, 2 the file or
+an option could not be used, 3 unexpected failure.
 `;
 
 export const command: CliCommand = {
@@ -59,6 +63,7 @@ export const command: CliCommand = {
     });
     if (values.json) io.stdout(JSON.stringify(report, null, 2) + '\n');
     else io.stdout(formatAuditReport(report, path.basename(file)));
-    return EXIT.ok;
+    // Like verify: a distorted verdict is a failed check, so scripts and CI can stop on it.
+    return report.verdict.pass === false ? EXIT.refused : EXIT.ok;
   },
 };

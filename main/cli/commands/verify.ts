@@ -41,6 +41,20 @@ function measuredText(m: VerifyReport['marks'][number]): string {
   }
 }
 
+/** A ratio for the formula: 4 decimals, trailing zeros dropped. */
+function ratioText(v: number): string {
+  return String(Number(v.toFixed(4)));
+}
+
+/**
+ * The lie factor written out the way it is computed, so a reader can redo it: Tufte's effect form
+ * (1983, p. 57), (drawn ratio − 1) ÷ (value ratio − 1), or the ratio form for values within 2%.
+ */
+function formulaText(p: VerifyReport['lieFactor']['pairs'][number]): string {
+  if (p.problem || p.lieFactor === null || p.graphicRatio === null || p.graphicRatio === undefined) return '';
+  return p.basis === 'ratio' ? ` = ${ratioText(p.graphicRatio)} ÷ ${ratioText(p.dataRatio)}` : ` = (${ratioText(p.graphicRatio)} − 1) ÷ (${ratioText(p.dataRatio)} − 1)`;
+}
+
 /** The report as a designer reads it: what was measured, each lie factor, the verdict and what to do. */
 export function reportText(name: string, r: VerifyReport): string {
   const lines: string[] = [];
@@ -48,10 +62,10 @@ export function reportText(name: string, r: VerifyReport): string {
   const width = Math.min(28, Math.max(...r.marks.map((m) => m.label.length)));
   for (const m of r.marks) lines.push(`  ${m.label.padEnd(width)}  value ${String(m.value).padStart(10)}  drawn ${measuredText(m)}`);
   if (r.lieFactor.pairs.length) {
-    lines.push(`Lie factor against "${r.lieFactor.pairs[0].reference}" (the smallest value):`);
+    lines.push(`Lie factor against "${r.lieFactor.pairs[0].reference}" (the smallest value), (drawn ratio − 1) ÷ (value ratio − 1):`);
     for (const p of r.lieFactor.pairs) {
       const note = p.problem ? `  (${p.problem})` : p.basis === 'ratio' ? '  (ratio basis)' : '';
-      lines.push(`  ${p.label.padEnd(width)}  ${fixed(p.lieFactor)}${note}`);
+      lines.push(`  ${p.label.padEnd(width)}  ${fixed(p.lieFactor)}${formulaText(p)}${note}`);
     }
   }
   const worst = r.lieFactor.worstPair ? ` (${r.lieFactor.worstPair.label} against ${r.lieFactor.worstPair.reference})` : '';

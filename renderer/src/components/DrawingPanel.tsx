@@ -1,17 +1,33 @@
 // How the numbers become glyphs: mode, what one glyph stands for, the glyph, rounding and colours.
 import { useRef, useState, type ReactElement } from 'react';
-import type { EncodingMode } from '../../../shared-core/document';
+import type { Arrangement, EncodingMode, FillTo, Rounding } from '../../../shared-core/document';
 import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
-import { formatNumber } from '../editor/editorDocument';
+import { formatNumber, nearGlyphNames } from '../editor/editorDocument';
 import { GlyphPicker, GlyphThumb } from './GlyphPicker';
 import { NumberField } from './NumberField';
+import { RadioGroup, type RadioOption } from './RadioGroup';
 
 const MODES: { mode: EncodingMode; name: string; says: string }[] = [
   { mode: 'repeat', name: 'Repeat', says: 'Rows of glyphs; each glyph is a fixed amount.' },
   { mode: 'stack', name: 'Stack', says: 'Columns of glyphs rising from one baseline.' },
   { mode: 'scale', name: 'Scale', says: 'One glyph per row, its ink area in proportion to the value.' },
   { mode: 'fill', name: 'Fill', says: 'Each glyph filled by ink to its share.' },
+];
+
+const ROUNDINGS: readonly RadioOption<Rounding>[] = [
+  { value: 'ink-cut', label: 'Cut by ink' },
+  { value: 'whole', label: 'Whole glyphs' },
+];
+
+const ARRANGEMENTS: readonly RadioOption<Arrangement>[] = [
+  { value: 'per-category', label: 'A row per category' },
+  { value: 'shared-grid', label: 'One shared grid' },
+];
+
+const FILL_TOS: readonly RadioOption<FillTo>[] = [
+  { value: 'max', label: 'The largest value' },
+  { value: 'share', label: 'Each value is a share (0–1)' },
 ];
 
 interface DrawingPanelProps {
@@ -32,26 +48,13 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
   const colors = doc.layout.colors ?? defaultColors;
   const customColors = doc.layout.colors !== undefined;
   const modeInfo = MODES.find((m) => m.mode === enc.mode);
+  const nearNames = nearGlyphNames(enc.glyph);
 
   return (
     <div className="drawing-panel">
       <div className="field">
         <span className="field-label" id="mode-label">Mode</span>
-        <div className="segmented" role="radiogroup" aria-labelledby="mode-label">
-          {MODES.map((m) => (
-            <button
-              key={m.mode}
-              type="button"
-              role="radio"
-              aria-checked={enc.mode === m.mode}
-              className={enc.mode === m.mode ? 'segment active' : 'segment'}
-              title={m.says}
-              onClick={() => dispatch({ type: 'set-mode', mode: m.mode })}
-            >
-              {m.name}
-            </button>
-          ))}
-        </div>
+        <RadioGroup labelledBy="mode-label" options={MODES.map((m) => ({ value: m.mode, label: m.name, title: m.says }))} value={enc.mode} onChange={(mode) => dispatch({ type: 'set-mode', mode })} testId="mode-group" />
         {modeInfo && <p className="field-hint">{modeInfo.says}</p>}
       </div>
 
@@ -78,6 +81,21 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
         </div>
       </div>
 
+      {nearNames.length > 0 && typeof enc.glyph === 'string' && (
+        <div className="field-problem glyph-unknown" role="alert" data-testid="glyph-unknown">
+          <p>
+            The glyph “{enc.glyph.length > 40 ? `${enc.glyph.slice(0, 40)}…` : enc.glyph}” is unknown: it is not one of the bundled glyphs. Near names:
+          </p>
+          <div className="near-names">
+            {nearNames.map((name) => (
+              <button key={name} type="button" className="button subtle near-name" onClick={() => dispatch({ type: 'set-glyph', glyph: name })}>
+                <GlyphThumb glyph={name} size={16} /> {name}
+              </button>
+            ))}
+          </div>
+        </div>
+      )}
+
       {counted && (
         <div className="field-group">
           <div className="field">
@@ -94,7 +112,7 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
                 <p className="readout" data-testid="unit-readout">{chosenUnit !== null ? formatNumber(chosenUnit) : '…'}</p>
               </div>
             ) : (
-              <NumberField label="Amount" value={enc.unit ?? 1} testId="unit-input" check={(v) => (v > 0 ? null : 'The amount must be greater than 0.')} onCommit={(v) => dispatch({ type: 'set-unit', unit: v })} />
+              <NumberField label="Amount" value={enc.unit ?? 1} testId="unit-input" check={(v) => (v > 0 ? null : 'The amount must be greater than 0.')} onCommit={(v) => dispatch({ type: 'set-unit', unit: v, typing: true })} live onDone={seal} />
             )}
             <div className="field">
               <label htmlFor="unit-name">Counting</label>
@@ -103,14 +121,7 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
           </div>
           <div className="field">
             <span className="field-label" id="rounding-label">Remainders</span>
-            <div className="segmented" role="radiogroup" aria-labelledby="rounding-label">
-              <button type="button" role="radio" aria-checked={enc.rounding === 'ink-cut'} className={enc.rounding === 'ink-cut' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-rounding', rounding: 'ink-cut' })}>
-                Cut by ink
-              </button>
-              <button type="button" role="radio" aria-checked={enc.rounding === 'whole'} className={enc.rounding === 'whole' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-rounding', rounding: 'whole' })}>
-                Whole glyphs
-              </button>
-            </div>
+            <RadioGroup labelledBy="rounding-label" options={ROUNDINGS} value={enc.rounding} onChange={(rounding) => dispatch({ type: 'set-rounding', rounding })} testId="rounding-group" />
             <p className="field-hint">
               {enc.rounding === 'ink-cut' ? 'A remainder of 0.4 shows 40% of a glyph’s ink.' : 'Each row is rounded to the nearest whole glyph; the check tells you what that costs.'}
             </p>
@@ -121,28 +132,14 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
       {enc.mode === 'repeat' && (
         <div className="field">
           <span className="field-label" id="arrangement-label">Arrangement</span>
-          <div className="segmented" role="radiogroup" aria-labelledby="arrangement-label">
-            <button type="button" role="radio" aria-checked={enc.arrangement === 'per-category'} className={enc.arrangement === 'per-category' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-arrangement', arrangement: 'per-category' })}>
-              A row per category
-            </button>
-            <button type="button" role="radio" aria-checked={enc.arrangement === 'shared-grid'} className={enc.arrangement === 'shared-grid' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-arrangement', arrangement: 'shared-grid' })}>
-              One shared grid
-            </button>
-          </div>
+          <RadioGroup labelledBy="arrangement-label" options={ARRANGEMENTS} value={enc.arrangement} onChange={(arrangement) => dispatch({ type: 'set-arrangement', arrangement })} testId="arrangement-group" />
         </div>
       )}
 
       {enc.mode === 'fill' && (
         <div className="field">
           <span className="field-label" id="fill-label">Full glyph means</span>
-          <div className="segmented" role="radiogroup" aria-labelledby="fill-label">
-            <button type="button" role="radio" aria-checked={enc.fillTo === 'max'} className={enc.fillTo === 'max' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-fill-to', fillTo: 'max' })}>
-              The largest value
-            </button>
-            <button type="button" role="radio" aria-checked={enc.fillTo === 'share'} className={enc.fillTo === 'share' ? 'segment active' : 'segment'} onClick={() => dispatch({ type: 'set-fill-to', fillTo: 'share' })}>
-              Each value is a share (0–1)
-            </button>
-          </div>
+          <RadioGroup labelledBy="fill-label" options={FILL_TOS} value={enc.fillTo} onChange={(fillTo) => dispatch({ type: 'set-fill-to', fillTo })} testId="fill-group" />
         </div>
       )}
 

@@ -45,7 +45,21 @@ interface GlyphPickerProps {
 const PICKER_WIDTH_PX = 352;
 const EDGE_PX = 8;
 
-export function GlyphPicker({ value, onChoose, onClose, onClear, label, anchor }: GlyphPickerProps): ReactElement {
+export function GlyphPicker({ value, onChoose: choose, onClose: close, onClear: clear, label, anchor }: GlyphPickerProps): ReactElement {
+  // After a choice or Escape, focus goes back to the control that opened the picker, not to the page
+  // (WAI-ARIA Authoring Practices, dialog pattern: on close, focus returns to the invoking element).
+  // A click elsewhere closes it without moving focus, so the click's own target keeps it.
+  const refocus = () => anchor.current?.focus();
+  const onChoose = (name: string) => {
+    choose(name);
+    refocus();
+  };
+  const onClear = clear
+    ? () => {
+        clear();
+        refocus();
+      }
+    : undefined;
   const [query, setQuery] = useState('');
   const results = useMemo(() => findGlyphs(query), [query]);
   const panel = useRef<HTMLDivElement>(null);
@@ -74,12 +88,13 @@ export function GlyphPicker({ value, onChoose, onClose, onClear, label, anchor }
     const onDown = (e: MouseEvent) => {
       const target = e.target as Node;
       if (panel.current?.contains(target) || anchor.current?.contains(target)) return;
-      onClose();
+      close();
     };
     const onKey = (e: KeyboardEvent) => {
       if (e.key === 'Escape') {
         e.stopPropagation();
-        onClose();
+        close();
+        anchor.current?.focus();
       }
     };
     document.addEventListener('mousedown', onDown);
@@ -88,7 +103,7 @@ export function GlyphPicker({ value, onChoose, onClose, onClear, label, anchor }
       document.removeEventListener('mousedown', onDown);
       document.removeEventListener('keydown', onKey, true);
     };
-  }, [onClose, anchor]);
+  }, [close, anchor]);
 
   return createPortal(
     <div
@@ -109,7 +124,11 @@ export function GlyphPicker({ value, onChoose, onClose, onClear, label, anchor }
           value={query}
           onChange={(e) => setQuery(e.target.value)}
           onKeyDown={(e) => {
-            if (e.key === 'Enter' && results[0]) onChoose(results[0].name);
+            if (e.key === 'Enter' && results[0]) {
+              // Otherwise the Enter's keypress lands on the glyph button, which gets focus back, and reopens the picker.
+              e.preventDefault();
+              onChoose(results[0].name);
+            }
           }}
           aria-label="Search glyphs"
         />

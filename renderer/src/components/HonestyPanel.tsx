@@ -2,10 +2,20 @@
 // worst pair, the spread, the verdict, print findings, and when refused, why and what to change.
 import type { ReactElement } from 'react';
 import type { HonestyView } from '../render/renderTypes';
-import { formatDrawn, formatFactor, formatGraphic, formatValue, inkPixels, meterPosition, readingSentence } from '../honesty/formatHonesty';
+import { toUiWords } from '../honesty/findingWords';
+import { formatDrawn, formatFactor, formatGraphic, formatValue, inkPixels, meterPosition, readingSentence, rowFormula } from '../honesty/formatHonesty';
+import { Icon } from './Icon';
 
 const DRAWN_HEADINGS = { glyphs: 'Glyphs', mm: 'Height (mm)', mm2: 'Ink (mm²)', share: 'Filled' } as const;
-import { Icon } from './Icon';
+
+/** A remedy the designer can apply with one click; the app checked that it is possible. */
+export interface OneClickFix {
+  /** The words on the button, in the app's vocabulary ("Cut by ink", "Use 25 per glyph"). */
+  label: string;
+  /** What the click changes and why it passes. */
+  title: string;
+  apply: () => void;
+}
 
 export type HonestyState =
   | { kind: 'checked'; honesty: HonestyView; current: boolean }
@@ -17,6 +27,8 @@ export type HonestyState =
 interface HonestyPanelProps {
   state: HonestyState;
   ppi: number;
+  /** One-click remedies for a refusal, in the order offered. */
+  fixes?: OneClickFix[];
 }
 
 function Meter({ value, limits }: { value: number | null; limits: { low: number; high: number } }): ReactElement | null {
@@ -39,7 +51,7 @@ function testId(id: string, current: boolean): string | undefined {
   return current ? id : undefined;
 }
 
-function Verdict({ honesty, current }: { honesty: HonestyView; current: boolean }): ReactElement {
+function Verdict({ honesty, current, fixes }: { honesty: HonestyView; current: boolean; fixes: OneClickFix[] }): ReactElement {
   const { limits } = honesty;
   const allowed = `${limits.low.toFixed(2)}–${limits.high.toFixed(2)}`;
   if (honesty.pass) {
@@ -61,38 +73,72 @@ function Verdict({ honesty, current }: { honesty: HonestyView; current: boolean 
       </div>
     );
   }
+  const blocking = honesty.findings.filter((f) => f.severity === 'blocking');
+  const first = blocking[0];
+  const reason = toUiWords(first?.message ?? honesty.reason ?? honesty.problems[0] ?? 'It did not pass the check.');
+  // The fix of each finding is its own; general suggestions only add what the findings do not say.
+  const ownFixes = new Set(blocking.map((f) => f.fix));
+  // "Or use a smaller unit" reads oddly once the sentence it followed is shown as the fix above.
+  const suggestions = honesty.suggestions.filter((sg) => !ownFixes.has(sg)).map((sg) => toUiWords(sg).replace(/^Or (\w)/, (_, c: string) => c.toUpperCase()));
   return (
     <div className={current ? 'verdict refused' : 'verdict refused stale'} data-testid="verdict" data-verdict="refused" data-current={current} role="alert">
       <div className="verdict-head">
         <Icon name="stop" size={18} />
         <span>Refused — this chart misstates the data</span>
       </div>
-      <p className="verdict-reason" data-testid={testId('refusal-reason', current)}>{honesty.reason ?? honesty.problems[0] ?? 'It did not pass the check.'}</p>
-      {honesty.suggestions.length > 0 && (
-        <div className="fixes">
-          <span className="fixes-title">How to fix it</span>
-          <ul data-testid={testId('suggestions', current)}>
-            {honesty.suggestions.map((s, i) => (
-              <li key={i}>{s}</li>
-            ))}
-          </ul>
+      <p className="verdict-reason" data-testid={testId('refusal-reason', current)}>{reason}</p>
+      {first?.fix && (
+        <p className="verdict-fix" data-testid={testId('refusal-fix', current)}>
+          <span className="fixes-title">What to change</span> {toUiWords(first.fix)}
+        </p>
+      )}
+      {current && fixes.length > 0 && (
+        <div className="fix-buttons" data-testid="fix-buttons">
+          {fixes.map((f) => (
+            <button key={f.label} type="button" className="button fix-button" title={f.title} onClick={f.apply}>
+              {f.label}
+            </button>
+          ))}
         </div>
       )}
-      {honesty.problems.length > 1 && (
+      {blocking.length > 1 && (
+        <details className="more-problems" open={blocking.length <= 3}>
+          <summary>{blocking.length - 1} more {blocking.length === 2 ? 'problem' : 'problems'}</summary>
+          <ul data-testid={testId('more-findings', current)}>
+            {blocking.slice(1).map((f, i) => (
+              <li key={i}>
+                {toUiWords(f.message)}
+                {f.fix && f.fix !== first?.fix && <span className="finding-fix"> {toUiWords(f.fix)}</span>}
+              </li>
+            ))}
+          </ul>
+        </details>
+      )}
+      {blocking.length === 0 && honesty.problems.length > 1 && (
         <details className="more-problems">
           <summary>{honesty.problems.length - 1} more {honesty.problems.length === 2 ? 'problem' : 'problems'}</summary>
           <ul>
             {honesty.problems.slice(1).map((p, i) => (
-              <li key={i}>{p}</li>
+              <li key={i}>{toUiWords(p)}</li>
             ))}
           </ul>
         </details>
+      )}
+      {suggestions.length > 0 && (
+        <div className="fixes">
+          <span className="fixes-title">{first?.fix ? 'Also worth trying' : 'How to fix it'}</span>
+          <ul data-testid={testId('suggestions', current)}>
+            {suggestions.map((sg, i) => (
+              <li key={i}>{sg}</li>
+            ))}
+          </ul>
+        </div>
       )}
     </div>
   );
 }
 
-export function HonestyPanel({ state, ppi }: HonestyPanelProps): ReactElement {
+export function HonestyPanel({ state, ppi, fixes = [] }: HonestyPanelProps): ReactElement {
   return (
     <aside className="panel honesty" aria-label="Honesty check" id="honesty-check" tabIndex={-1}>
       <header className="panel-head">
@@ -117,7 +163,7 @@ export function HonestyPanel({ state, ppi }: HonestyPanelProps): ReactElement {
         {state.kind === 'waiting' && state.previous && (
           <div className="previous-check" aria-label="Last check before the table changed">
             <p className="section-note">The last check, before this change:</p>
-            <CheckedDetails honesty={state.previous} current={false} ppi={ppi} />
+            <CheckedDetails honesty={state.previous} current={false} ppi={ppi} fixes={[]} />
           </div>
         )}
         {state.kind === 'failed' && (
@@ -129,19 +175,22 @@ export function HonestyPanel({ state, ppi }: HonestyPanelProps): ReactElement {
             <p className="verdict-reason">{state.message}</p>
           </div>
         )}
-        {state.kind === 'checked' && <CheckedDetails honesty={state.honesty} current={state.current} ppi={ppi} />}
+        {state.kind === 'checked' && <CheckedDetails honesty={state.honesty} current={state.current} ppi={ppi} fixes={fixes} />}
       </div>
     </aside>
   );
 }
 
-function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; current: boolean; ppi: number }): ReactElement {
+function CheckedDetails({ honesty, current, ppi, fixes }: { honesty: HonestyView; current: boolean; ppi: number; fixes: OneClickFix[] }): ReactElement {
   const { limits } = honesty;
   const unitWord = honesty.rows[0]?.graphicUnit ?? 'glyphs';
+  const referenceRow = honesty.rows.find((r) => r.isReference);
+  const worstRow = honesty.worst ? honesty.rows.find((r) => r.label === honesty.worst?.label) : undefined;
+  const worstFormula = worstRow ? rowFormula(worstRow, referenceRow) : null;
   const smallestPx = honesty.smallestGlyph ? inkPixels(honesty.smallestGlyph.inkMm2, ppi) : null;
   return (
     <>
-      <Verdict honesty={honesty} current={current} />
+      <Verdict honesty={honesty} current={current} fixes={fixes} />
 
       <section className="check-section">
         <h3>Each category against the smallest</h3>
@@ -152,10 +201,10 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
           <thead>
             <tr>
               <th scope="col">Category</th>
-              <th scope="col" className="num">Value</th>
-              <th scope="col" className="num">{DRAWN_HEADINGS[unitWord]}</th>
-              <th scope="col" className="num">Lie factor</th>
-              <th scope="col"><span className="sr-only">Position in the allowed band</span></th>
+              <th scope="col" className="num col-value">Value</th>
+              <th scope="col" className="num col-drawn">{DRAWN_HEADINGS[unitWord]}</th>
+              <th scope="col" className="num col-factor">Lie factor</th>
+              <th scope="col" className="col-meter"><span className="sr-only">Position in the allowed band</span></th>
             </tr>
           </thead>
           <tbody>
@@ -163,10 +212,10 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
               const outside = r.lieFactor !== null && (r.lieFactor < limits.low || r.lieFactor > limits.high);
               return (
                 <tr key={r.label} className={[r.isWorst ? 'worst' : '', outside || r.problem ? 'outside' : ''].join(' ').trim() || undefined} data-label={r.label}>
-                  <th scope="row">{r.label}</th>
+                  <th scope="row" title={r.label}>{r.label}</th>
                   <td className="num">{formatValue(r.value)}</td>
                   <td className="num" title={formatGraphic(r.graphic, r.graphicUnit)}>{formatDrawn(r.graphic, r.graphicUnit)}</td>
-                  <td className="num factor" data-testid={testId('row-factor', current)}>
+                  <td className="num factor" data-testid={testId('row-factor', current)} title={rowTitle(r, referenceRow)}>
                     {r.isReference ? <span className="ref-tag">reference</span> : r.problem ? <span className="bad-text">not drawn</span> : formatFactor(r.lieFactor, limits)}
                     {r.basis === 'ratio' && <span className="basis-tag" title="The values differ by less than 2%, so the ratio form is used">ratio</span>}
                   </td>
@@ -180,6 +229,11 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
           <div>
             <dt>Worst pair</dt>
             <dd data-testid={testId('worst-pair', current)}>{honesty.worst ? `${honesty.worst.label} vs ${honesty.worst.reference}: ${formatFactor(honesty.worst.lieFactor, limits)}` : '—'}</dd>
+            {worstFormula && (
+              <dd className="figure-note" data-testid={testId('worst-formula', current)}>
+                = {worstFormula}
+              </dd>
+            )}
           </div>
           <div>
             <dt>Spread</dt>
@@ -194,7 +248,7 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
           </div>
         </dl>
         <p className="section-note small">
-          Lie factor = change shown ÷ change in the data. 1 is faithful; {unitWord === 'glyphs' ? 'glyph counts' : 'measurements'} come from the exported file itself.
+          Lie factor = change shown ÷ change in the data, each change counted from the reference: (drawn ratio − 1) ÷ (value ratio − 1). 1 is faithful; {unitWord === 'glyphs' ? 'glyph counts' : 'measurements'} come from the exported file itself.
         </p>
       </section>
 
@@ -235,4 +289,10 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
       )}
     </>
   );
+}
+
+/** The factor cell's tooltip: the lie factor written out from the row's own figures. */
+function rowTitle(row: HonestyView['rows'][number], reference: HonestyView['rows'][number] | undefined): string | undefined {
+  const formula = rowFormula(row, reference);
+  return formula ? `${formula}${row.basis === 'ratio' ? ' (ratio form: the values differ by less than 2%)' : ''}` : undefined;
 }

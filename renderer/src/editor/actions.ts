@@ -17,7 +17,8 @@ export type Action =
   /** Pasted table text; from a row onward (overwriting, adding rows as needed) or replacing the table. */
   | { type: 'paste-table'; text: string; atRowId?: string }
   | { type: 'set-mode'; mode: EncodingMode }
-  | { type: 'set-unit'; unit: number | null }
+  /** typing: from the Amount field as it is typed, merged into one undo step until the field is left. */
+  | { type: 'set-unit'; unit: number | null; typing?: boolean }
   | { type: 'set-unit-name'; unitName: string }
   | { type: 'set-glyph'; glyph: string }
   | { type: 'set-rounding'; rounding: Rounding }
@@ -233,6 +234,8 @@ export function coalesceKey(action: Action): string | null {
     case 'set-source':
     case 'set-unit-name':
       return action.type;
+    case 'set-unit':
+      return action.typing ? 'set-unit:typing' : null;
     default:
       return null;
   }

@@ -15,7 +15,7 @@ import {
   type PageUnit,
   type Rounding,
 } from '../../../shared-core/document';
-import { getGlyph } from '../../../shared-core/glyph';
+import { closeGlyphNames, getGlyph } from '../../../shared-core/glyph';
 
 export interface EditorRow {
   /** Stable within a document, for React keys and actions; never written to the file. */
@@ -70,6 +70,8 @@ export interface ConversionResult {
   rowProblems: RowProblem[];
   /** Problems that are not about one cell, as plain sentences. */
   otherProblems: string[];
+  /** The chart glyph's problem (also in otherProblems), e.g. a name this build does not bundle. */
+  chartGlyphProblem: string | null;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -145,13 +147,30 @@ export function fromChartDocument(input: unknown): EditorDocument {
   };
 }
 
+/** How many near names an unknown glyph's message offers. */
+const NEAR_GLYPH_NAMES = 3;
+
+/** Bundled glyph names close to an unknown one (spelling and tags), or [] when the name is known. */
+export function nearGlyphNames(glyph: GlyphRef | undefined): string[] {
+  if (typeof glyph !== 'string') return [];
+  try {
+    getGlyph(glyph);
+    return [];
+  } catch {
+    return closeGlyphNames(glyph, NEAR_GLYPH_NAMES);
+  }
+}
+
 function glyphProblem(glyph: GlyphRef): string | null {
   if (typeof glyph !== 'string') return null;
   try {
     getGlyph(glyph);
     return null;
-  } catch (e) {
-    return (e as Error).message;
+  } catch {
+    const shown = glyph.length > 40 ? `${glyph.slice(0, 40)}…` : glyph;
+    const near = closeGlyphNames(glyph, NEAR_GLYPH_NAMES).map((n) => `"${n}"`);
+    const hint = near.length ? ` Near names: ${near.slice(0, -1).join(', ')}${near.length > 1 ? ' or ' : ''}${near[near.length - 1]}.` : '';
+    return `The glyph "${shown}" is unknown: it is not one of the bundled glyphs.${hint} Choose one with the Glyph button.`;
   }
 }
 
@@ -186,7 +205,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
   if (ed.rows.length === 0) otherProblems.push('The table is empty: a chart needs at least one row.');
   const chartGlyph = glyphProblem(ed.encoding.glyph);
   if (chartGlyph) otherProblems.push(chartGlyph);
-  if (rowProblems.length > 0 || otherProblems.length > 0) return { document: null, rowProblems, otherProblems };
+  if (rowProblems.length > 0 || otherProblems.length > 0) return { document: null, rowProblems, otherProblems, chartGlyphProblem: chartGlyph };
 
   const { mode, glyph, rounding, unit, unitName, arrangement, fillTo } = ed.encoding;
   const encoding: ChartDocument['encoding'] = { mode, glyph, rounding };
@@ -220,7 +239,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
   };
   if (ed.title.trim() !== '') document.title = ed.title;
   if (ed.source.trim() !== '') document.source = ed.source;
-  return { document, rowProblems, otherProblems };
+  return { document, rowProblems, otherProblems, chartGlyphProblem: null };
 }
 
 /** The row a document problem path such as `data[2].value` points at, with its field. */

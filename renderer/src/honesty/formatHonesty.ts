@@ -77,3 +77,46 @@ export function meterPosition(value: number, limits: { low: number; high: number
 export function inkPixels(inkMm2: number, ppi: number): number {
   return inkMm2 * (ppi / 25.4) ** 2;
 }
+
+/** A ratio rounded for the formula: trailing zeros dropped, thousands grouped. */
+function ratioWithDigits(value: number, digits: number): string {
+  return Number(value.toFixed(digits)).toLocaleString('en-US', { maximumFractionDigits: digits, minimumFractionDigits: 0 });
+}
+
+/** At least 2 decimals, and enough that a ratio's distance from 1 keeps 2 significant digits. */
+function baseDigits(value: number): number {
+  const distance = Math.abs(value - 1);
+  return distance > 0 ? Math.min(6, Math.max(2, Math.ceil(-Math.log10(distance)) + 1)) : 2;
+}
+
+/**
+ * The lie factor written out the way it is computed, so a reader can redo it: Tufte's effect form
+ * (The Visual Display of Quantitative Information, 1983, p. 57), (shown ratio − 1) ÷ (data ratio − 1),
+ * or the ratio form, shown ratio ÷ data ratio, used when the values differ by less than 2%. The ratios
+ * get more decimals where fewer would make the written-out division give another figure than the one shown.
+ */
+export function effectFormula(graphicRatio: number, dataRatio: number, basis: 'effect' | 'ratio'): string {
+  if (!Number.isFinite(graphicRatio) || !Number.isFinite(dataRatio)) return '';
+  const form = (g: number, d: number) => (basis === 'ratio' ? g / d : (g - 1) / (d - 1));
+  const target = form(graphicRatio, dataRatio).toFixed(3);
+  let gDigits = baseDigits(graphicRatio);
+  let dDigits = baseDigits(dataRatio);
+  for (let extra = 0; extra < 4; extra++) {
+    const g = Number(graphicRatio.toFixed(gDigits));
+    const d = Number(dataRatio.toFixed(dDigits));
+    if (form(g, d).toFixed(3) === target) break;
+    gDigits = Math.min(8, gDigits + 1);
+    dDigits = Math.min(8, dDigits + 1);
+  }
+  const g = ratioWithDigits(graphicRatio, gDigits);
+  const d = ratioWithDigits(dataRatio, dDigits);
+  return basis === 'ratio' ? `${g} ÷ ${d}` : `(${g} − 1) ÷ (${d} − 1)`;
+}
+/** The row's effect formula against the reference row, or null when there is nothing to compare. */
+export function rowFormula(
+  row: { graphic: number; value: number; lieFactor: number | null; basis: 'effect' | 'ratio' | null },
+  reference: { graphic: number; value: number } | undefined,
+): string | null {
+  if (!reference || row.lieFactor === null || row.basis === null || !(reference.graphic > 0) || !(reference.value > 0)) return null;
+  return effectFormula(row.graphic / reference.graphic, row.value / reference.value, row.basis) || null;
+}

@@ -14,6 +14,16 @@ export interface HonestyRow {
   isWorst: boolean;
 }
 
+/** One problem of the check with its own fix, as the verifier reports it (shared-core/integrity/check.ts). */
+export interface HonestyFinding {
+  code: string;
+  severity: 'blocking' | 'warning' | 'advice';
+  message: string;
+  fix: string;
+  category?: string;
+  action?: { kind: string; label: string; payload?: Record<string, unknown> };
+}
+
 export interface HonestyView {
   pass: boolean;
   mode: 'repeat' | 'stack' | 'scale' | 'fill';
@@ -25,6 +35,8 @@ export interface HonestyView {
   spread: number | null;
   reason: string | null;
   problems: string[];
+  /** Every problem with its code and its own fix, blocking ones first. */
+  findings: HonestyFinding[];
   suggestions: string[];
   notes: string[];
   preflight: { code: string; message: string }[];
@@ -34,10 +46,21 @@ export interface HonestyView {
 
 export type RenderOutcome =
   /** Laid out, written and re-measured. svg is null only when a refusal came without the file. */
-  | { kind: 'checked'; svg: string | null; honesty: HonestyView; unit: { value: number; chosen: boolean } | null }
+  | { kind: 'checked'; svg: string | null; honesty: HonestyView; unit: { value: number; chosen: boolean } | null; offers?: FixOffers }
   /** The document itself is wrong: each problem names its field path (data[2].value...). */
   | { kind: 'invalid'; message: string; problems: { path: string; message: string }[] }
   | { kind: 'failed'; code: string; message: string };
+
+/**
+ * One-click remedies for a refused chart, each tried through the whole export chain first: offered
+ * only when the changed document really passes.
+ */
+export interface FixOffers {
+  /** Remainders cut by ink pass where whole glyphs were refused. */
+  inkCut?: boolean;
+  /** The largest readable unit below the current one that passes with the current rounding. */
+  unit?: number;
+}
 
 export interface DemoChart {
   id: string;

@@ -4,6 +4,7 @@ import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
+import { PNG } from 'pngjs';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { main } from '../../../main/cli/index';
 import { verifySvg } from '../../../shared-core/integrity/verifySvg';
@@ -26,7 +27,8 @@ async function cli(args: string[], cwd = fixtures) {
 describe('tallyglyph audit', () => {
   it('prints the JSON shape scripts rely on', async () => {
     const r = await cli(['audit', 'barrels-area.svg', '--values', '1,5.54', '--json']);
-    expect(r.code).toBe(0);
+    // Distorted (Tufte's 9.4, far outside 0.95-1.05): a failed check, exit 1 like verify.
+    expect(r.code).toBe(1);
     const j = JSON.parse(r.out);
     expect(j.marks.map((m: { id: string }) => m.id)).toEqual(['barrel-1973', 'barrel-1979']);
     for (const k of ['length', 'area', 'volume']) expect(typeof j.readings[k].lieFactor.worst).toBe('number');
@@ -38,6 +40,7 @@ describe('tallyglyph audit', () => {
 
   it('values by mark id and the text report', async () => {
     const r = await cli(['audit', 'stretched-height.svg', '--values', 'tall=30,short=10']);
+    // Stretched x3 in height for a value x3, read by height: faithful, exit 0.
     expect(r.code).toBe(0);
     expect(r.out).toMatch(/Tallyglyph audit of stretched-height\.svg/);
     expect(r.out).toMatch(/read by their height/);
@@ -59,6 +62,45 @@ describe('tallyglyph audit', () => {
   });
 });
 
+describe('tallyglyph audit exit status and advice', () => {
+  it('exits 1 on a distorted verdict and 0 on a faithful one, as help audit documents', async () => {
+    // Tufte p. 62: the barrels drawn by area against data up 454% give a lie factor of 9.4.
+    const distorted = await cli(['audit', 'barrels-area.svg', '--values', '1,5.54']);
+    expect(distorted.code).toBe(1);
+    expect(distorted.out).toMatch(/Verdict/);
+    // The figure is shown in the effect form it comes from (Tufte p. 57): the drawing grows 43.8x
+    // (+4,280%), the data 5.54x (+454%), (43.8 - 1) / (5.54 - 1) = 9.43 (the book's 9.4, p. 62).
+    expect(distorted.out).toContain('lie factor (43.8 − 1) ÷ (5.54 − 1) = 9.43');
+    expect(distorted.out).toMatch(/ {4}area: \(43\.8 − 1\) ÷ \(5\.54 − 1\) = 9\.43\n/);
+    expect((await cli(['audit', 'stretched-height.svg', '--values', '10,30'])).code).toBe(0);
+    const help = await cli(['help', 'audit']);
+    expect(help.out).toMatch(/Exit status: 0 .*faithful/);
+    expect(help.out).toMatch(/1 the graphic distorts the data/);
+  });
+
+  it('a PNG audited with the wrong number of values points to the options that pick marks in an image', async () => {
+    // Three dark squares on white: three marks, but only two values.
+    const png = new PNG({ width: 120, height: 60 });
+    png.data.fill(255);
+    for (const [x0, side] of [[10, 10], [45, 20], [80, 30]] as const) {
+      for (let y = 15; y < 15 + side; y++) {
+        for (let x = x0; x < x0 + side; x++) {
+          const i = (y * png.width + x) * 4;
+          png.data[i] = png.data[i + 1] = png.data[i + 2] = 20;
+        }
+      }
+    }
+    const file = path.join(dir, 'three-squares.png');
+    fs.writeFileSync(file, PNG.sync.write(png));
+    const r = await cli(['audit', file, '--values', '1,2'], dir);
+    expect(r.code).toBe(2);
+    expect(r.err).toMatch(/2 value\(s\) were given but the image has 3 mark/);
+    expect(r.err).toMatch(/--seed x,y/);
+    // --marks picks SVG elements by id: no use for an image.
+    expect(r.err).not.toMatch(/--marks/);
+  });
+});
+
 describe('tallyglyph correct', () => {
   it('writes a corrected file that re-audits within 0.95–1.05, and leaves the supplied file alone', async () => {
     const before = fs.readFileSync(path.join(fixtures, 'barrels-area.svg'), 'utf8');
@@ -68,6 +110,7 @@ describe('tallyglyph correct', () => {
     expect(r.out).toMatch(/Worst area lie factor: 9\.43 before, 1\.00 after/);
     expect(fs.readFileSync(path.join(fixtures, 'barrels-area.svg'), 'utf8')).toBe(before);
     const again = await cli(['audit', out, '--values', '1,5.54', '--json'], dir);
+    expect(again.code).toBe(0);
     const j = JSON.parse(again.out);
     expect(j.readings.area.pass).toBe(true);
     expect(Math.abs(j.readings.area.lieFactor.worst - 1)).toBeLessThan(0.001);

@@ -23,8 +23,8 @@ describe('tallyglyph verify', () => {
     const io = capture(dir);
     expect(await command.run(['trees.svg'], io)).toBe(0);
     expect(io.out).toMatch(/^trees\.svg: 4 marks, read by area \(mode scale\)/);
-    expect(io.out).toMatch(/Lie factor against "Eastfield" \(the smallest value\):/);
-    expect(io.out).toMatch(/\n {2}Riverside +1\.0\d{3}\n/);
+    expect(io.out).toMatch(/Lie factor against "Eastfield" \(the smallest value\), \(drawn ratio − 1\) ÷ \(value ratio − 1\):/);
+    expect(io.out).toMatch(/\n {2}Riverside +1\.0\d{3} = \([\d.]+ − 1\) ÷ \([\d.]+ − 1\)\n/);
     expect(io.out).toMatch(/\nPASS: /);
   });
 
@@ -32,6 +32,8 @@ describe('tallyglyph verify', () => {
     const io = capture(dir);
     expect(await command.run(['squared.svg'], io)).toBe(1);
     expect(io.out).toMatch(/Worst lie factor 5\.0000 \(East against North\)/);
+    // Written out in Tufte's effect form (p. 57): 16x the ink for 4x the value, (16 - 1) / (4 - 1) = 5.
+    expect(io.out).toMatch(/\n {2}East +5\.0000 = \(16 − 1\) ÷ \(4 − 1\)\n/);
     expect(io.out).toMatch(/FAIL: East is drawn with 16\.00x the ink area of North but its value is only 4\.00x/);
     expect(io.out).toMatch(/try: Scale each glyph by ink area/);
   });

@@ -59,7 +59,8 @@ describe('fromChartDocument / toChartDocument', () => {
     const fields = out.rowProblems.map((p) => `${p.rowId}:${p.field}`);
     expect(fields).toEqual([`${rows[0].id}:value`, `${rows[2].id}:label`, `${rows[3].id}:glyph`]);
     expect(out.rowProblems[0].message).toMatch(/Negative values cannot be drawn/);
-    expect(out.rowProblems[2].message).toMatch(/no bundled glyph called "bicyclee"/);
+    // Says the glyph is unknown and offers near names (by spelling), "bike" among them.
+    expect(out.rowProblems[2].message).toMatch(/^The glyph "bicyclee" is unknown: it is not one of the bundled glyphs\. Near names: .*"bike"/);
 
     const share = toChartDocument({ ...ed, encoding: { ...ed.encoding, mode: 'fill', fillTo: 'share' } });
     expect(share.document).toBeNull();

@@ -13,7 +13,8 @@ describe('formatAuditReport', () => {
     expect(text).toMatch(/look solid \(an elliptical top on a body of the same width, as on a barrel/);
     // sqrt(43.8) = 6.618; (43.8 - 1) / (5.54 - 1) = 9.427.
     expect(text).toMatch(/stands for 5\.54 times the value of barrel-1973 and is drawn with 43\.8 times the area/);
-    expect(text).toMatch(/shows the difference 9\.43 times as big as the data does \(lie factor 9\.43; Tufte counts anything outside 0\.95–1\.05/);
+    // The figure in the effect form it comes from (Tufte 1983, p. 57): (43.8 - 1) / (5.54 - 1) = 9.43.
+    expect(text).toMatch(/shows the difference 9\.43 times as big as the data does \(lie factor \(43\.8 − 1\) ÷ \(5\.54 − 1\) = 9\.43, the growth drawn over the growth in the data; Tufte counts anything outside 0\.95–1\.05/);
     expect(text).toMatch(/area \(suggested\)\s+9\.43/);
     // Values read from the labels, said plainly.
     expect(text).toMatch(/"1\.00" → barrel-1973 \(value 1\)/);
@@ -25,7 +26,7 @@ describe('formatAuditReport', () => {
     const text = formatAuditReport(auditSvg(STRETCHED_3X.svg(), { values: STRETCHED_3X.values }), 'stretched.svg');
     expect(text).toMatch(/the height grows ×3\.00 while the width stays the same/);
     expect(text).toMatch(/the marks are read by their height/);
-    expect(text).toMatch(/Read by length, the marks are in proportion to the data: tall stands for 3\.00 times the value of short and is drawn 3\.00 times as long, a lie factor of 1\.00/);
+    expect(text).toMatch(/Read by length, the marks are in proportion to the data: tall stands for 3\.00 times the value of short and is drawn 3\.00 times as long, a lie factor of \(3\.00? − 1\) ÷ \(3\.00? − 1\) = 1\.00/);
     expect(text).toMatch(/length \(height\) \(suggested\)\s+1\.00\s+tall vs short\s+1\.00\s+faithful/);
     expect(text).toMatch(/Read by length, nothing needs to change/);
   });
