@@ -3,6 +3,8 @@
 
 import { z } from 'zod';
 import { TallyError } from '../errors';
+import { CHART_EXTRA_FIELDS, chartExtrasOf } from '../standardise/documentFields';
+import type { ChartExtras } from '../standardise/types';
 
 export const CHART_FORMAT = 'tallyglyph.chart/1';
 export const KNOWN_CHART_FORMATS: readonly string[] = Object.freeze([CHART_FORMAT]);
@@ -90,8 +92,8 @@ export interface PageMm {
   given: { width: number; height: number; unit: PageUnit };
 }
 
-/** A validated chart with every default filled in. */
-export interface ChartSpec {
+/** A validated chart with every default filled in. Standardisation and dismissed findings: see ChartExtras. */
+export interface ChartSpec extends ChartExtras {
   format: typeof CHART_FORMAT;
   title?: string;
   source?: string;
@@ -262,6 +264,7 @@ export const chartDocumentSchema = z.strictObject({
   page: pageSchema,
   outlineText: flag().default(true),
   useReferences: flag().default(false),
+  ...CHART_EXTRA_FIELDS,
 });
 
 /** A chart document as a designer or a script writes it. */
@@ -437,6 +440,7 @@ export function parseChart(json: unknown): ChartSpec {
   };
   if (d.title !== undefined) spec.title = d.title;
   if (d.source !== undefined) spec.source = d.source;
+  Object.assign(spec, chartExtrasOf(d));
   return spec;
 }
 
@@ -459,5 +463,6 @@ export function chartToDocument(spec: ChartSpec): ChartDocument {
   };
   if (spec.title !== undefined) doc.title = spec.title;
   if (spec.source !== undefined) doc.source = spec.source;
+  Object.assign(doc, chartExtrasOf(spec));
   return doc;
 }
