@@ -96,7 +96,10 @@ function check(rule: ChartRule, scene: Scene): IntegrityFinding[] {
       const low = Math.min(...bottoms.map((b) => b.value));
       const high = Math.max(...bottoms.map((b) => b.value));
       if (high - low > BASELINE_TOLERANCE_MM) {
-        const off = bottoms.reduce((a, b) => (Math.abs(b.value - low) > Math.abs(a.value - low) ? b : a));
+        // The odd one out is the stack farthest from the median baseline.
+        const sorted = bottoms.map((b) => b.value).sort((a, b) => a - b);
+        const median = sorted[Math.floor(sorted.length / 2)];
+        const off = bottoms.reduce((a, b) => (Math.abs(b.value - median) > Math.abs(a.value - median) ? b : a));
         out.push(
           findingOf(rule, {
             code: 'scale-inconsistent-baseline',
