@@ -48,12 +48,11 @@ export function stepNote(step: AdjustmentStep, std: Standardisation | undefined)
   }
 }
 
-/** "Adjusted to 2020 money with the supplied price index; per 100,000 residents." or null when nothing was adjusted. */
+/** "Figures adjusted to 2020 money with the supplied price index; per 100,000 residents." or null when nothing was adjusted. */
 export function adjustmentFootnote(std: Standardisation | undefined): string | null {
   const steps = std?.adjustments?.steps ?? [];
   if (steps.length === 0) return null;
-  const text = steps.map((s) => stepNote(s, std)).join('; ');
-  return `${text.charAt(0).toUpperCase()}${text.slice(1)}.`;
+  return `Figures ${steps.map((s) => stepNote(s, std)).join('; ')}.`;
 }
 
 /**

@@ -32,7 +32,7 @@ describe('applyAdjustment records the step and keeps the original data', () => {
     expect(adjusted.data.map((r) => r.value)).toEqual([150, 75, 150]);
     expect(adjusted.encoding.unitName).toBe('loans per 1,000 residents');
     expect(adjusted.standardise?.adjustments?.original).toEqual({ unitName: 'loans', values: { 'Kestrel Bay': 1_200, 'Ashby Cross': 36_000, Fenwick: 9_000 } });
-    expect(adjustmentFootnote(adjusted.standardise)).toBe('Per 1,000 residents.');
+    expect(adjustmentFootnote(adjusted.standardise)).toBe('Figures per 1,000 residents.');
     expect(spec.data.map((r) => r.value)).toEqual([1_200, 36_000, 9_000]);
   });
 
@@ -56,7 +56,7 @@ describe('applyAdjustment records the step and keeps the original data', () => {
     // 965 x 172.2 / 96.5 = 1,722 (computed), / 1,000 = 1.722; 1,722 / 2,000 = 0.861.
     expect(twice.data.map((r) => Number(r.value.toFixed(9)))).toEqual([1.722, 0.861]);
     expect(twice.encoding.unitName).toBe('dollars (2000 money) per resident');
-    expect(adjustmentFootnote(twice.standardise)).toBe('Adjusted to 2000 money with the supplied price index; per resident.');
+    expect(adjustmentFootnote(twice.standardise)).toBe('Figures adjusted to 2000 money with the supplied price index; per resident.');
     expect(replayAdjustments(twice.standardise ?? {}).notes).toEqual(['adjusted to 2000 money with the supplied price index', 'per resident']);
     const back = removeAdjustments(twice);
     expect(back.data).toEqual(spec.data);
@@ -85,11 +85,11 @@ describe('the adjustment is written on the chart and in its metadata', () => {
   it('the source line carries the footnote, and the verified file records it in its summary', () => {
     const scene = layoutChart(parseChart(adjusted));
     const foot = scene.texts.filter((t) => t.role === 'source').map((t) => t.text).join(' ');
-    expect(foot).toBe('Source: Invented test data. Per 1,000 residents.');
+    expect(foot).toBe('Source: Invented test data. Figures per 1,000 residents.');
     const result = renderChart(adjusted);
     expect(result.report.pass).toBe(true);
     const summary = readChartSvg(result.svg).summary;
-    expect(summary?.adjustments).toEqual({ note: 'Per 1,000 residents.', steps: [{ kind: 'per-capita', column: 'population', per: 1_000 }] });
+    expect(summary?.adjustments).toEqual({ note: 'Figures per 1,000 residents.', steps: [{ kind: 'per-capita', column: 'population', per: 1_000 }] });
     expect(summary?.unitName).toBe('loans per 1,000 residents');
   });
 
@@ -110,5 +110,20 @@ describe('the document block is validated with field paths', () => {
   it('keeps dismissed findings with their reasons through a save', () => {
     const dismissed = [{ code: 'context-thin', reason: 'The brief is a before/after comparison of two seasons.' }];
     expect(chartToDocument(parseChart(townsDoc({ dismissed }))).dismissed).toEqual(dismissed);
+  });
+});
+
+describe('the demo chart with a standardised unit', () => {
+  it('prints its footnote, replays its recorded adjustment to the values drawn, and raises no rule finding', async () => {
+    const { DEMO_CHARTS } = await import('../../../shared-core/demo/demoCharts');
+    const { runRules } = await import('../../../shared-core/integrity/rules/index');
+    const demo = DEMO_CHARTS.find((d) => d.document.standardise?.adjustments);
+    expect(demo?.name).toBe('repeat-library-per-resident');
+    const spec = parseChart(demo?.document);
+    // 5,400 / 12,000 x 1,000 = 450; 9,100 / 26,000 x 1,000 = 350; 2,100 / 5,000 x 1,000 = 420; 3,600 / 15,000 x 1,000 = 240 (by hand).
+    expect(replayAdjustments(spec.standardise ?? {}).values.map((v) => Number(v.value.toFixed(9)))).toEqual([450, 350, 420, 240]);
+    const scene = layoutChart(spec);
+    expect(scene.texts.filter((t) => t.role === 'source').map((t) => t.text).join(' ')).toContain('Figures per 1,000 residents.');
+    expect(runRules(spec, scene)).toEqual([]);
   });
 });
