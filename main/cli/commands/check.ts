@@ -6,7 +6,7 @@ import { parseArgs } from 'node:util';
 import { parseChart } from '../../../shared-core/document/index';
 import { isTallyError, TallyError } from '../../../shared-core/errors';
 import { verifySvg, type IntegrityFinding } from '../../../shared-core/integrity/index';
-import { checkChart, type DismissedResult, type RuleReport } from '../../../shared-core/integrity/rules/index';
+import { checkChart, measureDataInk, type DataInkMeasure, type DismissedResult, type RuleReport } from '../../../shared-core/integrity/rules/index';
 import { layoutChart } from '../../../shared-core/layout/index';
 import { DEFAULT_XML_LIMITS, writeSvg } from '../../../shared-core/svg/index';
 import { countsText, dismissedText, findingText } from '../findingsText';
@@ -22,7 +22,7 @@ Exit status: 0 nothing blocks export, 1 a finding blocks export (with --strict: 
 2 the document could not be read.
 
 Options:
-  --json     print { ok, file, lieFactor, findings, dismissed } as JSON
+  --json     print { ok, file, lieFactor, ink, findings, dismissed } as JSON
   --strict   treat open warnings like blocking findings for the exit status
 `;
 
@@ -33,6 +33,8 @@ export interface ChartCheck {
   findings: IntegrityFinding[];
   dismissed: DismissedResult[];
   lieFactor: { worst: number | null; pass: boolean };
+  /** Ink of data marks, reading aids and decoration, measured from the laid-out geometry. */
+  ink: DataInkMeasure;
 }
 
 /** Every finding for a chart document: verification of the file it would write, then the rules. */
@@ -45,7 +47,7 @@ export function checkDocument(doc: unknown): ChartCheck {
   }
   const report = verifySvg(written, { rounding: spec.encoding.rounding });
   const rules = checkChart(spec, scene);
-  return { findings: [...report.findings, ...rules.findings], dismissed: rules.dismissed, lieFactor: { worst: report.lieFactor.worst, pass: report.pass } };
+  return { findings: [...report.findings, ...rules.findings], dismissed: rules.dismissed, lieFactor: { worst: report.lieFactor.worst, pass: report.pass }, ink: measureDataInk(scene) };
 }
 
 /** The rule findings alone (no verification), for commands that verify on their own, such as render. */
@@ -66,6 +68,14 @@ async function readDocument(file: string, shown: string): Promise<string> {
     const why = code === 'ENOENT' ? 'there is no such file' : code === 'EISDIR' ? 'it is a folder' : code === 'EACCES' ? 'permission was denied' : (e as Error).message;
     throw new TallyError('io-error', `Could not read "${shown}": ${why}.`);
   }
+}
+
+/** The data-ink line: each kind of ink as a share of all ink, whole percent. */
+function inkText(ink: DataInkMeasure): string {
+  const total = ink.dataMm2 + ink.readingAidMm2 + ink.decorationMm2;
+  if (!(total > 0)) return 'Ink: nothing is drawn.';
+  const pct = (x: number) => `${Math.round((x / total) * 100)}%`;
+  return `Ink: data marks ${pct(ink.dataMm2)}, reading aids ${pct(ink.readingAidMm2)}, decoration ${pct(ink.decorationMm2)} (${total.toFixed(0)} mm² in all).`;
 }
 
 function usageError(io: CliIO, message: string): number {
@@ -95,10 +105,10 @@ async function run(argv: string[], io: CliIO): Promise<number> {
   const blocking = result.findings.filter((f) => f.severity === 'blocking' || (values.strict && f.severity === 'warning'));
   const ok = blocking.length === 0;
   if (values.json) {
-    io.stdout(JSON.stringify({ ok, file: shown, lieFactor: result.lieFactor, findings: result.findings, dismissed: result.dismissed }, null, 2) + '\n');
+    io.stdout(JSON.stringify({ ok, file: shown, lieFactor: result.lieFactor, ink: result.ink, findings: result.findings, dismissed: result.dismissed }, null, 2) + '\n');
   } else {
     const worst = result.lieFactor.worst === null ? 'not defined' : result.lieFactor.worst.toFixed(4);
-    const lines = [`${shown}: ${countsText(result.findings)}; worst lie factor ${worst} (allowed 0.95-1.05).`];
+    const lines = [`${shown}: ${countsText(result.findings)}; worst lie factor ${worst} (allowed 0.95-1.05).`, inkText(result.ink)];
     for (const f of result.findings) lines.push(findingText(f));
     lines.push(...dismissedText(result.dismissed));
     lines.push(ok ? (result.findings.length ? 'Nothing blocks export; read the warnings above before publishing.' : 'No findings.') : `Export is blocked: fix the ${values.strict ? 'blocking findings and warnings' : 'blocking findings'} above.`);

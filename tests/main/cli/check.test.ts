@@ -44,6 +44,7 @@ describe('tallyglyph check', () => {
     const io = capture(tmp.dir);
     expect(await command.run([writeDoc('fares.json', FARES)], io)).toBe(0);
     expect(io.out).toContain('fares.json: 0 blocking findings, 2 warnings, 0 advice; worst lie factor 1.0000 (allowed 0.95-1.05).');
+    expect(io.out.split('\n')[1]).toMatch(/^Ink: data marks \d+%, reading aids \d+%, decoration 0% \(\d+ mm² in all\)\.$/);
     expect(io.out).toContain('WARNING money-nominal (Money over time not adjusted for prices)');
     expect(io.out).toContain('WARNING source-unstated (Source not stated)');
     expect(io.out).toContain('  Fix: Name the source of the data');
@@ -61,6 +62,8 @@ describe('tallyglyph check', () => {
     const out = JSON.parse(io.out);
     expect(out.ok).toBe(true);
     expect(out.lieFactor).toEqual({ worst: 1, pass: true });
+    expect(out.ink.dataShare).toBeCloseTo(out.ink.dataMm2 / (out.ink.dataMm2 + out.ink.readingAidMm2 + out.ink.decorationMm2), 12);
+    expect(out.ink.dataShare).toBeGreaterThan(0.5);
     expect(out.findings.map((f: { code: string }) => f.code)).toEqual(['money-nominal', 'source-unstated']);
     expect(out.dismissed[0]).toMatchObject({ reason: 'The brief compares two survey years.', finding: { code: 'context-thin', severity: 'advice' } });
   });
