@@ -5,7 +5,7 @@ import { isTallyError } from '../../shared-core/errors';
 import { EXIT, type CliCommand, type CliIO } from './types';
 
 /** Known commands, in the order the help lists them. Each lives in ./commands/<name>.ts. */
-export const COMMAND_NAMES = ['render', 'verify', 'demo', 'glyph', 'audit', 'correct', 'sheet'] as const;
+export const COMMAND_NAMES = ['render', 'verify', 'check', 'demo', 'glyph', 'audit', 'correct', 'sheet'] as const;
 
 export async function loadCommand(name: string): Promise<CliCommand | null> {
   if (!(COMMAND_NAMES as readonly string[]).includes(name)) return null;

@@ -102,4 +102,29 @@ export const DEMO_CHARTS: readonly DemoChart[] = Object.freeze([
       page: PAGE,
     },
   },
+  {
+    name: 'repeat-library-per-resident',
+    description: 'standardised: library loans per 1,000 residents, so districts of different size compare fairly; the footnote says so',
+    document: {
+      format: 'tallyglyph.chart/1',
+      title: 'Wrenfield library loans per 1,000 residents, 2025',
+      source: SOURCE,
+      // The values are the loans below divided by each district's residents, x 1,000 (as applyAdjustment records them).
+      data: [
+        { label: 'Northside', value: 450 },
+        { label: 'Riverside', value: 350 },
+        { label: 'Hilltop', value: 420 },
+        { label: 'Eastfield', value: 240 },
+      ],
+      encoding: { mode: 'repeat', glyph: 'book', unit: 50, unitName: 'loans per 1,000 residents' },
+      page: PAGE,
+      standardise: {
+        columns: { population: { unitName: 'residents', values: { Northside: 12_000, Riverside: 26_000, Hilltop: 5_000, Eastfield: 15_000 } } },
+        adjustments: {
+          original: { unitName: 'loans', values: { Northside: 5_400, Riverside: 9_100, Hilltop: 2_100, Eastfield: 3_600 } },
+          steps: [{ kind: 'per-capita', column: 'population', per: 1_000 }],
+        },
+      },
+    },
+  },
 ]);

@@ -3,6 +3,8 @@
 
 import { z } from 'zod';
 import { TallyError } from '../errors';
+import { CHART_EXTRA_FIELDS, chartExtrasOf } from '../standardise/documentFields';
+import type { ChartExtras } from '../standardise/types';
 
 export const CHART_FORMAT = 'tallyglyph.chart/1';
 export const KNOWN_CHART_FORMATS: readonly string[] = Object.freeze([CHART_FORMAT]);
@@ -99,8 +101,8 @@ export interface PageMm {
   given: { width: number; height: number; unit: PageUnit };
 }
 
-/** A validated chart with every default filled in. */
-export interface ChartSpec {
+/** A validated chart with every default filled in. Standardisation and dismissed findings: see ChartExtras. */
+export interface ChartSpec extends ChartExtras {
   format: typeof CHART_FORMAT;
   title?: string;
   source?: string;
@@ -299,6 +301,7 @@ export const chartDocumentSchema = z.strictObject({
   useReferences: flag().default(false),
   /** A chart whose values are all zero compares nothing; it is written only when the document asks. */
   allowAllZero: flag().optional(),
+  ...CHART_EXTRA_FIELDS,
 });
 
 /** A chart document as a designer or a script writes it. */
@@ -476,6 +479,7 @@ export function parseChart(json: unknown): ChartSpec {
   if (d.title !== undefined) spec.title = d.title;
   if (d.source !== undefined) spec.source = d.source;
   if (d.allowAllZero === true) spec.allowAllZero = true;
+  Object.assign(spec, chartExtrasOf(d));
   return spec;
 }
 
@@ -499,5 +503,6 @@ export function chartToDocument(spec: ChartSpec): ChartDocument {
   if (spec.title !== undefined) doc.title = spec.title;
   if (spec.source !== undefined) doc.source = spec.source;
   if (spec.allowAllZero === true) doc.allowAllZero = true;
+  Object.assign(doc, chartExtrasOf(spec));
   return doc;
 }

@@ -19,6 +19,7 @@ import { scaleLayout } from './scaleLayout';
 import { stackLayout } from './stackLayout';
 import { assertGlyphBudget } from './chooseUnit';
 import { toXmlChars } from '../svg/xmlChars';
+import { adjustmentFootnote } from '../standardise/applyAdjustments';
 
 export const READING_OF_MODE: Readonly<Record<ChartSpec['encoding']['mode'], Reading>> = Object.freeze({
   repeat: 'count',
@@ -49,6 +50,15 @@ function fittedLines(text: string, widthMm: number, sizeMm: number, weight: 400 
   return { lines, sizeMm: size };
 }
 
+/** The foot line: the source, then the footnote of any standardisation applied (per capita, prices...). */
+function sourceLine(spec: ChartSpec): string {
+  const source = spec.source?.trim() ?? '';
+  const named = source && !/^source\b/i.test(source) ? `Source: ${source}` : source;
+  const footnote = adjustmentFootnote(spec.standardise);
+  if (!footnote) return named;
+  return named ? `${named}${/[.!?]$/.test(named) ? '' : '.'} ${footnote}` : footnote;
+}
+
 function pageFrame(spec: ChartSpec): Frame {
   const { margins } = spec.layout;
   const x = margins.left;
@@ -66,9 +76,9 @@ function pageFrame(spec: ChartSpec): Frame {
     });
     top += m.boxHeightMm + (fitted.lines.length - 1) * m.lineHeightMm + BLOCK_GAP_MM;
   }
-  const source = spec.source?.trim();
+  const source = sourceLine(spec);
   if (source) {
-    const fitted = fittedLines(/^source\b/i.test(source) ? source : `Source: ${source}`, width, TEXT_SIZE_MM.source, 400);
+    const fitted = fittedLines(source, width, TEXT_SIZE_MM.source, 400);
     const m = lineMetrics(fitted.sizeMm);
     const count = fitted.lines.length;
     fitted.lines.forEach((line, i) => {
@@ -160,6 +170,8 @@ export function layoutChart(spec: ChartSpec): Scene {
   if (result.unitGlyphInkMm2 !== undefined) summary.unitGlyphInkMm2 = result.unitGlyphInkMm2;
   if (result.pitchMm !== undefined) summary.pitchMm = result.pitchMm;
   if (result.baselineYMm !== undefined) summary.baselineYMm = result.baselineYMm;
+  const footnote = adjustmentFootnote(spec.standardise);
+  if (footnote && spec.standardise?.adjustments) summary.adjustments = { note: footnote, steps: spec.standardise.adjustments.steps };
 
   const scene: Scene = {
     page: {

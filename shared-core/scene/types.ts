@@ -2,6 +2,7 @@
 // Layout produces it, the SVG writer serialises it; verification never reads it (it reads the file).
 import type { Warning } from '../errors';
 import type { Region } from '../geometry/region';
+import type { AdjustmentStep } from '../standardise/types';
 
 /** How a mark's quantity is read by the eye, and so how verification measures it. */
 export type Reading = 'count' | 'length' | 'area' | 'fill';
@@ -93,6 +94,8 @@ export interface ChartSummary {
   /** Stack pitch (glyph plus gap) in mm and the shared baseline y. */
   pitchMm?: number;
   baselineYMm?: number;
+  /** Standardisation applied to the values (per capita, price index...): the footnote printed on the chart and the steps. */
+  adjustments?: { note: string; steps: AdjustmentStep[] };
   /** Filled in by verification before writing: the lie factor measured on this very file. */
   measured?: { lieFactorWorst: number | null; spread: number | null; pass: boolean };
 }

@@ -5,11 +5,13 @@ import { parseArgs } from 'node:util';
 import { isTallyError, TallyError } from '../../../shared-core/errors';
 import { exportChart, formatFromPath, parsePpi, type ExportResult } from '../../export/index';
 import { EXIT, type CliCommand, type CliIO } from '../types';
+import { ruleReportOf } from './check';
 
 const USAGE = `Usage: tallyglyph render <chart.json> -o <out.svg|out.png> [--ppi 300] [--json]
 
 Lays out the chart, re-measures the written file and writes it only if every lie factor lies within
-0.95-1.05 (Tufte). A refused chart leaves any existing output file untouched.
+0.95-1.05 (Tufte). A refused chart leaves any existing output file untouched. Findings of the rules
+beyond the lie factor (see \`tallyglyph check\`) are printed as warnings and advice; they do not stop the export.
 
 Options:
   -o, --output <file>  where to write; .svg or .png
@@ -92,11 +94,14 @@ async function run(argv: string[], io: CliIO): Promise<number> {
   }
   try {
     const result = await exportChart(text, output, { ...(ppi !== undefined ? { ppi } : {}), ...(values['allow-all-zero'] ? { allowAllZero: true } : {}) });
+    // The chart passed the gate; the rules beyond the lie factor travel with it as warnings and advice.
+    const rules = ruleReportOf(text);
     if (json) {
-      io.stdout(JSON.stringify({ ok: true, path: output, format: result.format, report: result.report, raster: result.raster ?? null, png: result.png ?? null, warnings: result.warnings }, null, 2) + '\n');
+      io.stdout(JSON.stringify({ ok: true, path: output, format: result.format, report: result.report, raster: result.raster ?? null, png: result.png ?? null, warnings: result.warnings, findings: rules.findings, dismissed: rules.dismissed }, null, 2) + '\n');
     } else {
       io.stdout(successText(result, values.output));
       for (const w of result.warnings) io.stderr(`tallyglyph render: warning: ${w.message}\n`);
+      for (const f of rules.findings) io.stderr(`tallyglyph render: ${f.severity} ${f.code}: ${f.message} Fix: ${f.fix}\n`);
     }
     return EXIT.ok;
   } catch (e) {

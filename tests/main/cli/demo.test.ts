@@ -21,8 +21,8 @@ describe('tallyglyph demo', () => {
     expect(fs.readdirSync(dir).sort()).toEqual(names.flatMap((n) => [`${n}.png`, `${n}.svg`]).sort());
     const lines = io.out.trim().split('\n');
     expect(lines).toHaveLength(2 * names.length + 1);
-    expect(lines[0]).toMatch(/^\[1\/5\] repeat-bike-share\.svg .*verified from the file: worst lie factor 1\.0\d{3}$/);
-    expect(lines[1]).toMatch(/^\[1\/5\] repeat-bike-share\.png +2126 x 141[78] px at 300 ppi; lie factor from pixels \d\.\d{4}$/);
+    expect(lines[0]).toMatch(/^\[1\/6\] repeat-bike-share\.svg .*verified from the file: worst lie factor 1\.0\d{3}$/);
+    expect(lines[1]).toMatch(/^\[1\/6\] repeat-bike-share\.png +2126 x 141[78] px at 300 ppi; lie factor from pixels \d\.\d{4}$/);
     const modes = new Set<string>();
     for (const name of names) {
       const svg = fs.readFileSync(path.join(dir, `${name}.svg`), 'utf8');
@@ -50,7 +50,7 @@ describe('tallyglyph demo', () => {
     // 150 ppi keeps the run short; the 300 ppi files are checked above.
     const run = runTallyglyph(['demo', '-o', dir, '--ppi', '150'], 120_000);
     expect(run.status).toBe(0);
-    expect(run.stdout).toMatch(/Wrote 10 verified files/);
-    expect(fs.readdirSync(dir)).toHaveLength(10);
+    expect(run.stdout).toMatch(/Wrote 12 verified files/);
+    expect(fs.readdirSync(dir)).toHaveLength(12);
   });
 });
