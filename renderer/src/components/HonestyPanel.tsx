@@ -6,6 +6,8 @@ import { formatDrawn, formatFactor, formatGraphic, formatValue, inkPixels, meter
 
 const DRAWN_HEADINGS = { glyphs: 'Glyphs', mm: 'Height (mm)', mm2: 'Ink (mm²)', share: 'Filled' } as const;
 import { Icon } from './Icon';
+import { useContext } from 'react';
+import { pickableRow, RowPickContext } from '../preview/rowPick';
 
 export type HonestyState =
   | { kind: 'checked'; honesty: HonestyView; current: boolean }
@@ -136,6 +138,7 @@ export function HonestyPanel({ state, ppi }: HonestyPanelProps): ReactElement {
 }
 
 function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; current: boolean; ppi: number }): ReactElement {
+  const pick = useContext(RowPickContext);
   const { limits } = honesty;
   const unitWord = honesty.rows[0]?.graphicUnit ?? 'glyphs';
   const smallestPx = honesty.smallestGlyph ? inkPixels(honesty.smallestGlyph.inkMm2, ppi) : null;
@@ -162,7 +165,7 @@ function CheckedDetails({ honesty, current, ppi }: { honesty: HonestyView; curre
             {honesty.rows.map((r) => {
               const outside = r.lieFactor !== null && (r.lieFactor < limits.low || r.lieFactor > limits.high);
               return (
-                <tr key={r.label} className={[r.isWorst ? 'worst' : '', outside || r.problem ? 'outside' : ''].join(' ').trim() || undefined} data-label={r.label}>
+                <tr key={r.label} className={[r.isWorst ? 'worst' : '', outside || r.problem ? 'outside' : ''].join(' ').trim() || undefined} data-label={r.label} {...pickableRow(pick, r.label, current)}>
                   <th scope="row">{r.label}</th>
                   <td className="num">{formatValue(r.value)}</td>
                   <td className="num" title={formatGraphic(r.graphic, r.graphicUnit)}>{formatDrawn(r.graphic, r.graphicUnit)}</td>
