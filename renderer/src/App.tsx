@@ -152,7 +152,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
 
   const honestyState: HonestyState = (() => {
     const previous = outcome?.kind === 'checked' ? outcome.honesty : null;
-    if (tableProblems.length > 0) return { kind: 'waiting', title: 'Waiting for the table', problems: tableProblems, previous };
+    // A new, empty chart has no earlier check of its own to show.
+    if (tableProblems.length > 0) return { kind: 'waiting', title: 'Waiting for the table', problems: tableProblems, previous: isBlank(doc) ? null : previous };
     if (!outcome) return { kind: 'pending' };
     if (outcome.kind === 'invalid') return current ? { kind: 'waiting', title: 'The chart document has a problem', problems: outcome.problems.length ? outcome.problems.map((p) => `${p.path}: ${p.message}`) : [outcome.message], previous: null } : { kind: 'pending' };
     if (outcome.kind === 'failed') return { kind: 'failed', title: 'The chart could not be drawn', message: outcome.message };
@@ -475,6 +476,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
       {pdfDialog && (
         <PdfExportDialog
           pageLabel={pageLabel}
+          bleedMm={doc.layout.bleedMm}
           available={caps?.exportsPdf === true}
           blocked={exportBlock}
           working={working !== null}

@@ -5,6 +5,7 @@ import '../documents/documents.css';
 
 interface PdfExportDialogProps {
   pageLabel: string;
+  bleedMm: number;
   /** The host can write PDFs (the desktop app); the browser cannot run the checking renderer. */
   available: boolean;
   /** Why export is blocked now (the honesty check), or null. */
@@ -14,7 +15,7 @@ interface PdfExportDialogProps {
   onClose: () => void;
 }
 
-export function PdfExportDialog({ pageLabel, available, blocked, working, onExport, onClose }: PdfExportDialogProps): ReactElement {
+export function PdfExportDialog({ pageLabel, bleedMm, available, blocked, working, onExport, onClose }: PdfExportDialogProps): ReactElement {
   const dialog = useRef<HTMLDivElement>(null);
   useEffect(() => {
     const previous = document.activeElement as HTMLElement | null;
@@ -47,7 +48,7 @@ export function PdfExportDialog({ pageLabel, available, blocked, working, onExpo
         <h2 id="pdf-dialog-title">Export PDF for print</h2>
         <dl>
           <dt>Page</dt>
-          <dd data-testid="pdf-dialog-page">{pageLabel}; trim box set inside the bleed</dd>
+          <dd data-testid="pdf-dialog-page">{bleedMm > 0 ? `${pageLabel}; the trim box is set inside the bleed` : `${pageLabel}, no bleed (set one in Page if the printer asks for it)`}</dd>
           <dt>Drawing</dt>
           <dd>Vector paths; all text converted to outlines, so no fonts are needed</dd>
           <dt>Colour</dt>

@@ -122,16 +122,20 @@ export function Preview({ svg, busy, overlay, pageLabel, elapsedMs, emptyState, 
     // Only when the pick changes, not on every resize.
   }, [picked]);
 
-  // Space held: the hand for panning, as in drawing programs; outside text fields only.
+  // Space held: the hand for panning, as in drawing programs; outside text fields only. Over the page
+  // (or with the page focused) the key is the hand's alone: it neither scrolls nor presses a focused button.
+  const hovering = useRef(false);
   useEffect(() => {
+    const ours = () => hovering.current || canvas.current?.contains(document.activeElement) || document.activeElement === document.body;
     const down = (e: KeyboardEvent) => {
-      if (e.code === 'Space' && !isTyping(e.target) && !e.repeat) {
-        setSpaceHeld(true);
-        if (canvas.current?.contains(document.activeElement) || document.activeElement === document.body) e.preventDefault();
-      }
+      if (e.code !== 'Space' || isTyping(e.target)) return;
+      if (!e.repeat) setSpaceHeld(true);
+      if (ours()) e.preventDefault();
     };
     const up = (e: KeyboardEvent) => {
-      if (e.code === 'Space') setSpaceHeld(false);
+      if (e.code !== 'Space') return;
+      setSpaceHeld(false);
+      if (!isTyping(e.target) && ours()) e.preventDefault();
     };
     const blur = () => setSpaceHeld(false);
     window.addEventListener('keydown', down);
@@ -265,6 +269,12 @@ export function Preview({ svg, busy, overlay, pageLabel, elapsedMs, emptyState, 
         tabIndex={0}
         aria-label="Chart page. Plus and minus zoom, 0 fits, 1 shows true size; drag or hold space and drag to pan."
         onKeyDown={onKeyDown}
+        onPointerEnter={() => {
+          hovering.current = true;
+        }}
+        onPointerLeave={() => {
+          hovering.current = false;
+        }}
         onPointerDown={onPointerDown}
         onPointerMove={onPointerMove}
         onPointerUp={endDrag}
