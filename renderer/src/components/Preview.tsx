@@ -256,7 +256,7 @@ export function Preview({ svg, busy, overlay, pageLabel, elapsedMs, emptyState, 
         <div className="stage-overlay pick" role="note" data-testid="highlight-note">
           <strong>Showing “{highlightLabel}”</strong>
           <span>
-            {picked.markCount === 1 ? 'Its mark is' : `Its ${picked.markCount} marks are`} framed; the rest of the page is dimmed in the preview only.
+            Its glyphs are framed and the rest of the page dimmed, here only: the exported file is unchanged.
           </span>
           <button type="button" className="link-button" onClick={() => onClearHighlight?.()} data-testid="highlight-clear">
             Show all
