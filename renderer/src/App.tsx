@@ -472,7 +472,6 @@ export function App({ host }: { host: HostApi }): ReactElement {
         </div>
       </header>
 
-      {recovery.offer && <RecoveryBanner offer={recovery.offer} onRestore={restoreRecovered} onDiscard={recovery.discard} />}
       {pdfDialog && (
         <PdfExportDialog
           pageLabel={pageLabel}
@@ -534,6 +533,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
           pageLabel={pageLabel}
           elapsedMs={current ? render.elapsedMs : null}
           emptyState={isBlank(doc) ? <BlankChartNote /> : undefined}
+          notice={recovery.offer ? <RecoveryBanner offer={recovery.offer} onRestore={restoreRecovered} onDiscard={recovery.discard} /> : null}
           highlightLabel={pickedLabel}
           onClearHighlight={() => setPickedLabel(null)}
         />

@@ -15,7 +15,8 @@ page size with bleed, and is checked again from poppler's pixels (pdftoppm); it 
 
 Options:
   -o, --output <file>  where to write; .svg, .png or .pdf
-      --ppi <n>        PNG resolution in pixels per inch (default 300)
+      --ppi <n>        PNG resolution in pixels per inch (default 300); for a PDF, the resolution
+                       of poppler's pixel check
       --json           print the full verification report as JSON on stdout
 `;
 
@@ -73,6 +74,7 @@ async function run(argv: string[], io: CliIO): Promise<number> {
   if (!values.output) return usageError(io, 'where to? Give -o out.svg or -o out.png.');
   const input = path.resolve(io.cwd, positionals[0]);
   const output = path.resolve(io.cwd, values.output);
+  if (!/\.(svg|png|pdf)$/i.test(output)) return usageError(io, `Cannot tell the format of "${path.basename(output)}": name the output file .svg, .png or .pdf.`);
   if (path.extname(output).toLowerCase() === '.pdf') return runPdf(input, output, values.output, values.ppi, json, io);
   let ppi: number | undefined;
   try {

@@ -15,6 +15,8 @@ interface PreviewProps {
   elapsedMs: number | null;
   /** Shown instead of a picture when there is nothing to draw yet (a new, empty chart). */
   emptyState?: ReactNode;
+  /** A notice above the page that needs an answer (the offer to restore unsaved work). */
+  notice?: ReactNode;
   /** The category whose marks to show, picked in the honesty table; null shows all alike. */
   highlightLabel?: string | null;
   onClearHighlight?: () => void;
@@ -46,7 +48,7 @@ function isTyping(target: EventTarget | null): boolean {
   return !!el && (el.tagName === 'INPUT' || el.tagName === 'TEXTAREA' || el.tagName === 'SELECT' || el.isContentEditable);
 }
 
-export function Preview({ svg, busy, overlay, pageLabel, elapsedMs, emptyState, highlightLabel = null, onClearHighlight }: PreviewProps): ReactElement {
+export function Preview({ svg, busy, overlay, pageLabel, elapsedMs, emptyState, notice, highlightLabel = null, onClearHighlight }: PreviewProps): ReactElement {
   const url = useBlobUrl(svg);
   const [zoom, setZoom] = useState<Zoom>({ kind: 'fit' });
   const canvas = useRef<HTMLDivElement>(null);
@@ -246,6 +248,7 @@ export function Preview({ svg, busy, overlay, pageLabel, elapsedMs, emptyState, 
       <div className={busy ? 'progress-track on' : 'progress-track'} aria-hidden="true">
         <div className="progress-bar" />
       </div>
+      {notice}
       {overlay && (
         <div className={`stage-overlay ${overlay.tone}`} role="note" data-testid="preview-overlay">
           <strong>{overlay.title}</strong>

@@ -12,7 +12,7 @@ function when(ms: number): string {
 
 export function RecoveryBanner({ offer, onRestore, onDiscard }: { offer: RecoveryOffer; onRestore: () => void; onDiscard: () => void }): ReactElement {
   return (
-    <div className="recovery-banner" role="alertdialog" aria-labelledby="recovery-title" aria-describedby="recovery-text" data-testid="recovery-banner">
+    <div className="recovery-banner" role="region" aria-live="polite" aria-labelledby="recovery-title" aria-describedby="recovery-text" data-testid="recovery-banner">
       <strong id="recovery-title">Unsaved work was found</strong>
       <span id="recovery-text">
         “{offer.name}”, kept {when(offer.savedMs)}, was not saved before the app closed. Restore it, or discard it and keep what is open now.
@@ -21,7 +21,7 @@ export function RecoveryBanner({ offer, onRestore, onDiscard }: { offer: Recover
       <button type="button" className="button" onClick={onDiscard} data-testid="recovery-discard">
         Discard
       </button>
-      <button type="button" className="button primary" onClick={onRestore} data-testid="recovery-restore" autoFocus>
+      <button type="button" className="button primary" onClick={onRestore} data-testid="recovery-restore">
         Restore
       </button>
     </div>

@@ -176,8 +176,7 @@ export function createBrowserHost(options: BrowserHostOptions = {}): HostApi {
     rasterizesPng: typeof document !== 'undefined' && typeof HTMLCanvasElement !== 'undefined',
     menuShortcuts: false,
     savesInPlace: false,
-    // A PDF is checked by rendering it with poppler, which only the desktop app's main process can run.
-    exportsPdf: false,
+    // No exportsPdf: a PDF is checked by rendering it with poppler, which only the desktop app's main process can run.
   };
 
   function remember(name: string, text: string | null): string {

@@ -76,7 +76,7 @@ describe('browser host recovery', () => {
   it('refuses PDF export with the reason (the checking renderer runs only in the desktop app)', async () => {
     const host = createBrowserHost({ storage: memoryStorage() });
     const caps = await host.getCapabilities();
-    expect(caps.ok && caps.value.exportsPdf).toBe(false);
+    expect(caps.ok && caps.value.exportsPdf === true).toBe(false);
     const r = await host.exportPdf({ svg: '<svg/>', suggestedName: 'chart.pdf' });
     expect(!r.ok && r.error.message).toMatch(/needs the desktop app/);
   });
