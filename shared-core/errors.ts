@@ -14,6 +14,9 @@ export type ProblemCode =
   | 'data-invalid'
   | 'gate-refused'
   | 'raster-invalid'
+  | 'pdf-unsupported'
+  | 'pdf-invalid'
+  | 'checker-missing'
   | 'io-error'
   | 'usage'
   /** The chart cannot fit its page at a legible size: refused before anything is written. */

@@ -31,15 +31,17 @@ import {
   type RecentChart,
 } from '../../shared-core/host';
 import { exportFromRender } from '../export';
+import { pdfFromRender } from '../export/pdfExport';
 import { writeFileAtomic } from '../io/atomicWrite';
 
-export type FileKind = 'chart' | 'svg' | 'png';
+export type FileKind = 'chart' | 'svg' | 'png' | 'pdf';
 
 /** File filters for dialogs, by what is being written or read. */
 export const FILE_FILTERS: Readonly<Record<FileKind, { name: string; extensions: string[] }>> = Object.freeze({
   chart: { name: 'Tallyglyph chart', extensions: ['tallyglyph.json', 'json'] },
   svg: { name: 'SVG image', extensions: ['svg'] },
   png: { name: 'PNG image', extensions: ['png'] },
+  pdf: { name: 'PDF document', extensions: ['pdf'] },
 });
 
 /** Native dialogs, as main.ts provides them; null means the user cancelled. */
@@ -69,6 +71,10 @@ export interface HandlerDeps {
    * a distorted or active file through the host. Default: exportRefusal.
    */
   checkExport?: (svg: string) => string | null;
+  /** A checked SVG to PDF bytes, re-checked by poppler; throws TallyError to refuse. Default: verifiedPdf. */
+  buildPdf?: (svg: string) => Promise<Uint8Array>;
+  /** Where the recovery copy is kept; default recovery.json beside the recent-files list. */
+  recoveryFile?: string;
   now?: () => number;
 }
 
@@ -135,6 +141,16 @@ export function exportRefusal(svg: string): string | null {
   } catch (e) {
     return `Not exported: ${isTallyError(e) ? e.message : 'the file could not be checked.'}`;
   }
+}
+
+/**
+ * PDF bytes for a checked SVG by the CLI's PDF path (main/export pdfFromRender): drawn by pdfkit, then
+ * rendered by poppler and re-measured from its pixels before anything is returned.
+ */
+export async function verifiedPdf(svg: string): Promise<Uint8Array> {
+  const report = verifySvg(svg);
+  if (!report.pass) throw new TallyError('gate-refused', `Not exported: ${report.reason ?? 'the chart did not pass the honesty check.'}`, report);
+  return (await pdfFromRender({ svg, report, warnings: [] })).bytes;
 }
 
 /**
@@ -212,6 +228,48 @@ export function createRecentStore(recentFile: string, files: FilePort, now: () =
 }
 
 // ---------------------------------------------------------------------------------------------
+// The recovery copy
+
+const RECOVERY_FORMAT = 'tallyglyph.recovery/1';
+const storedRecoverySchema = z.object({
+  format: z.literal(RECOVERY_FORMAT),
+  copy: z.object({ text: z.string().min(1).max(HOST_LIMITS.maxDocumentChars), savedMs: z.number().int().min(0) }).nullable(),
+});
+
+export interface RecoveryStore {
+  save(text: string): Promise<{ savedMs: number }>;
+  load(): Promise<{ text: string; savedMs: number } | null>;
+  clear(): Promise<boolean>;
+}
+
+/**
+ * One recovery copy in one JSON file, replaced atomically each time, so a crash mid-write leaves the
+ * previous copy whole. Clearing writes an empty record (the file port has no delete). A missing or
+ * damaged file reads as no copy.
+ */
+export function createRecoveryStore(recoveryFile: string, files: FilePort, now: () => number): RecoveryStore {
+  async function load(): Promise<{ text: string; savedMs: number } | null> {
+    try {
+      const parsed = storedRecoverySchema.safeParse(JSON.parse(await files.readText(recoveryFile, HOST_LIMITS.maxDocumentChars + 4096)));
+      return parsed.success ? parsed.data.copy : null;
+    } catch {
+      return null;
+    }
+  }
+  async function save(text: string): Promise<{ savedMs: number }> {
+    const savedMs = Math.round(now());
+    await files.writeAtomic(recoveryFile, JSON.stringify({ format: RECOVERY_FORMAT, copy: { text, savedMs } }));
+    return { savedMs };
+  }
+  async function clear(): Promise<boolean> {
+    const had = (await load()) !== null;
+    if (had) await files.writeAtomic(recoveryFile, JSON.stringify({ format: RECOVERY_FORMAT, copy: null }));
+    return had;
+  }
+  return { save, load, clear };
+}
+
+// ---------------------------------------------------------------------------------------------
 // Handlers
 
 export const ELECTRON_CAPABILITIES: HostCapabilities = Object.freeze({
@@ -220,6 +278,7 @@ export const ELECTRON_CAPABILITIES: HostCapabilities = Object.freeze({
   rasterizesPng: true,
   menuShortcuts: true,
   savesInPlace: true,
+  exportsPdf: true,
 });
 
 function withExtension(filePath: string, extension: string): string {
@@ -233,6 +292,8 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
   const buildPng = deps.buildPng ?? verifiedPng;
   const checkExport = deps.checkExport ?? exportRefusal;
   const recent = createRecentStore(deps.recentFile, files, now);
+  const buildPdf = deps.buildPdf ?? verifiedPdf;
+  const recovery = createRecoveryStore(deps.recoveryFile ?? path.join(path.dirname(deps.recentFile), 'recovery.json'), files, now);
   // Paths this session opened or saved, by id; recent entries add theirs on demand.
   const known = new Map<string, string>();
   let lastFolder: string | null = null;
@@ -266,11 +327,11 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
     };
   }
 
-  async function writeExport(kind: 'svg' | 'png', svg: string, suggestedName: string, bytes: () => Uint8Array | string): Promise<{ name: string; bytes: number } | null> {
+  async function writeExport(kind: 'svg' | 'png' | 'pdf', svg: string, suggestedName: string, bytes: () => Uint8Array | string | Promise<Uint8Array>): Promise<{ name: string; bytes: number } | null> {
     const refusal = checkExport(svg);
     if (refusal) throw new TallyError('gate-refused', refusal);
-    // Built (and for PNG re-checked) before the dialog: a refusal never asks where to write.
-    const data = bytes();
+    // Built (and for PNG and PDF re-checked) before the dialog: a refusal never asks where to write.
+    const data = await bytes();
     const chosen = await deps.dialogs.chooseSavePath({ suggestedName, kind, folder: lastFolder });
     if (!chosen) return null;
     const target = withExtension(chosen, kind);
@@ -326,6 +387,12 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
     exportPng: guarded('exportPng', async (request) =>
       writeExport('png', request.svg, request.suggestedName, () => buildPng(request.svg, request.ppi)),
     ),
+
+    exportPdf: guarded('exportPdf', async (request) => writeExport('pdf', request.svg, request.suggestedName, () => buildPdf(request.svg))),
+
+    saveRecovery: guarded('saveRecovery', async (request) => recovery.save(request.text)),
+    loadRecovery: guarded('loadRecovery', async () => recovery.load()),
+    clearRecovery: guarded('clearRecovery', async () => recovery.clear()),
 
     listRecent: guarded('listRecent', async () => {
       const entries = await recent.list();
@@ -420,6 +487,7 @@ export function menuTemplate(options: { isMac: boolean; devTools: boolean }): Me
   menus.push({
     label: 'File',
     items: [
+      { label: 'New Chart', command: 'new', accelerator: 'CmdOrCtrl+N' },
       { label: 'Open Chart…', command: 'open', accelerator: 'CmdOrCtrl+O' },
       { separator: true },
       { label: 'Save', command: 'save', accelerator: 'CmdOrCtrl+S' },
@@ -427,6 +495,7 @@ export function menuTemplate(options: { isMac: boolean; devTools: boolean }): Me
       { separator: true },
       { label: 'Export SVG…', command: 'export-svg', accelerator: 'CmdOrCtrl+E' },
       { label: 'Export PNG…', command: 'export-png', accelerator: 'Shift+CmdOrCtrl+E' },
+      { label: 'Export PDF for Print…', command: 'export-pdf', accelerator: 'Alt+CmdOrCtrl+E' },
       ...(options.isMac ? [] : ([{ separator: true }, { role: 'quit' }] as MenuItemSpec[])),
     ],
   });
@@ -440,6 +509,8 @@ export function menuTemplate(options: { isMac: boolean; devTools: boolean }): Me
       { role: 'copy' },
       { role: 'paste' },
       { role: 'selectAll' },
+      { separator: true },
+      { label: 'Copy Chart as SVG', command: 'copy-svg', accelerator: 'Alt+CmdOrCtrl+C' },
     ],
   });
   menus.push({

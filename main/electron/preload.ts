@@ -39,6 +39,10 @@ const host: HostApi = {
   exportSvg: (request) => call('exportSvg', request),
   exportPng: (request) => call('exportPng', request),
   listRecent: () => call('listRecent', {}),
+  exportPdf: (request) => call('exportPdf', request),
+  saveRecovery: (request) => call('saveRecovery', request),
+  loadRecovery: () => call('loadRecovery', {}),
+  clearRecovery: () => call('clearRecovery', {}),
   onMenuCommand(listener: (command: MenuCommand) => void) {
     const wrapped = (_event: unknown, payload: unknown) => {
       const command = parseMenuCommand(payload);

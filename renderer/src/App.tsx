@@ -18,6 +18,12 @@ import { HonestyPanel, type HonestyState, type OneClickFix } from './components/
 import { BrandMark, Icon } from './components/Icon';
 import { PagePanel } from './components/PagePanel';
 import { Preview } from './components/Preview';
+import { PdfExportDialog } from './components/PdfExportDialog';
+import { RecoveryBanner } from './components/RecoveryBanner';
+import { blankDocument, isBlank } from './documents/blankChart';
+import { copySvgToClipboard } from './documents/copySvg';
+import { useRecovery } from './documents/useRecovery';
+import { RowPickContext, type RowPick } from './preview/rowPick';
 
 interface FileInfo {
   documentId: string | null;
@@ -52,6 +58,9 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const [working, setWorking] = useState<string | null>(null);
   /** After an open or a demo load, until this chart is first checked: the last check and preview are another chart's. */
   const [checksBelongToOtherChart, setChecksBelongToOtherChart] = useState(false);
+  const [pdfDialog, setPdfDialog] = useState(false);
+  const [pickedLabel, setPickedLabel] = useState<string | null>(null);
+  const rowPick: RowPick = useMemo(() => ({ pickedLabel, onPick: (label: string) => setPickedLabel((l) => (l === label ? null : label)) }), [pickedLabel]);
   const noticeId = useRef(0);
   const recentWrap = useRef<HTMLDivElement>(null);
 
@@ -159,7 +168,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
 
   const honestyState: HonestyState = (() => {
     const previous = outcome?.kind === 'checked' ? outcome.honesty : null;
-    if (tableProblems.length > 0) return { kind: 'waiting', title: onlyGlyphProblems ? 'Unknown glyph' : 'Waiting for the table', problems: tableProblems, previous };
+    if (tableProblems.length > 0) return { kind: 'waiting', title: onlyGlyphProblems ? 'Unknown glyph' : 'Waiting for the table', problems: tableProblems, previous: isBlank(doc) ? null : previous };
     if (!outcome) return { kind: 'pending' };
     if (outcome.kind === 'invalid') return current ? { kind: 'waiting', title: 'The chart document has a problem', problems: outcome.problems.length ? outcome.problems.map((p) => `${p.path}: ${p.message}`) : [outcome.message], previous: null } : { kind: 'pending' };
     if (outcome.kind === 'failed') return { kind: 'failed', title: 'The chart could not be drawn', message: outcome.message };
@@ -207,7 +216,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
   // ---- commands
 
   const exportAs = useCallback(
-    async (kind: 'svg' | 'png') => {
+    async (kind: 'svg' | 'png' | 'pdf') => {
       if (exportBlock || !exportSvgText) {
         say(exportBlock ?? 'Nothing to export yet.', 'error');
         return;
@@ -217,9 +226,10 @@ export function App({ host }: { host: HostApi }): ReactElement {
         return;
       }
       const suggestedName = safeFileName(documentStem(doc), kind);
-      setWorking(kind === 'png' ? `Making the PNG at ${ppi} ppi…` : 'Exporting the SVG…');
+      setWorking(kind === 'png' ? `Making the PNG at ${ppi} ppi…` : kind === 'pdf' ? 'Making the PDF and checking it with an independent renderer…' : 'Exporting the SVG…');
       try {
-        const result = kind === 'svg' ? await host.exportSvg({ svg: exportSvgText, suggestedName }) : await host.exportPng({ svg: exportSvgText, suggestedName, ppi });
+        const result =
+          kind === 'svg' ? await host.exportSvg({ svg: exportSvgText, suggestedName }) : kind === 'pdf' ? await host.exportPdf({ svg: exportSvgText, suggestedName }) : await host.exportPng({ svg: exportSvgText, suggestedName, ppi });
         if (!result.ok) say(result.error.message, 'error');
         else if (result.value) say(`Exported ${result.value.name} (${(result.value.bytes / 1024).toFixed(result.value.bytes < 10_240 ? 1 : 0)} KB).`);
       } finally {
@@ -284,6 +294,38 @@ export function App({ host }: { host: HostApi }): ReactElement {
     [host, loadText, say, mayReplace],
   );
 
+  const recovery = useRecovery(host, { name: file.name, documentId: file.documentId, editor: doc }, dirty);
+  const restoreRecovered = useCallback(() => {
+    const work = recovery.restore();
+    if (!work) return;
+    // The restored work stays unsaved (the saved document is still the one that was open), so the dirty marker shows.
+    send({ type: 'reset', document: work.editor });
+    setFile({ documentId: work.documentId, name: work.name, demoId: null });
+    say(`Restored unsaved work on ${work.name}.`);
+  }, [recovery, say]);
+
+  const newChart = useCallback(() => {
+    if (!mayReplace('Start a new chart')) return;
+    const next = blankDocument(doc);
+    send({ type: 'reset', document: next });
+    setFile({ documentId: null, name: 'Untitled chart', demoId: null });
+    setSavedDoc(next);
+    setPickedLabel(null);
+  }, [doc, mayReplace]);
+
+  const copySvg = useCallback(async () => {
+    if (exportBlock || !exportSvgText) {
+      say(exportBlock ?? 'Nothing to copy yet.', 'error');
+      return;
+    }
+    try {
+      const how = await copySvgToClipboard(exportSvgText);
+      say(how === 'svg' ? 'Copied the checked chart as SVG: paste it into your vector editor.' : 'Copied the checked chart\'s SVG code: paste it into your vector editor.');
+    } catch (e) {
+      say(`Could not copy: ${e instanceof Error ? e.message : String(e)}`, 'error');
+    }
+  }, [exportBlock, exportSvgText, say]);
+
   const loadDemo = useCallback(
     (id: string) => {
       const demo = demos.find((d) => d.id === id);
@@ -305,6 +347,9 @@ export function App({ host }: { host: HostApi }): ReactElement {
     'export-png': () => void exportAs('png'),
     undo: () => send({ type: 'undo' }),
     redo: () => send({ type: 'redo' }),
+    new: () => newChart(),
+    'export-pdf': () => setPdfDialog(true),
+    'copy-svg': () => void copySvg(),
   };
   const commandsRef = useRef(commands);
   commandsRef.current = commands;
@@ -385,6 +430,9 @@ export function App({ host }: { host: HostApi }): ReactElement {
           </label>
         </div>
         <div className="toolbar-group">
+          <button type="button" className="tool" onClick={newChart} title="Start a new, empty chart" data-testid="new-chart">
+            <Icon name="plus" /> New
+          </button>
           <button type="button" className="tool" onClick={() => void open()} title={`Open a chart document (${shortcutLabel('open', isMac)})`}>
             <Icon name="open" /> Open
           </button>
@@ -420,6 +468,9 @@ export function App({ host }: { host: HostApi }): ReactElement {
           </div>
           <button type="button" className="tool" onClick={() => void save(false)} title={`Save the chart document (${shortcutLabel('save', isMac)})`} data-testid="save">
             <Icon name="save" /> Save
+          </button>
+          <button type="button" className="tool" onClick={() => void save(true)} title={`Save under a new name (${shortcutLabel('save-as', isMac)})`} data-testid="save-as">
+            Save As…
           </button>
         </div>
         <div className="toolbar-group">
@@ -462,11 +513,32 @@ export function App({ host }: { host: HostApi }): ReactElement {
               </button>
             </>
           )}
+          <button type="button" className="button" disabled={exportBlock !== null} title={exportBlock ?? `Copy the checked chart as SVG for a vector editor (${shortcutLabel('copy-svg', isMac)})`} onClick={() => void copySvg()} data-testid="copy-svg">
+            Copy SVG
+          </button>
+          <button type="button" className="button" disabled={working !== null} title={`Export a PDF for print (${shortcutLabel('export-pdf', isMac)})`} onClick={() => setPdfDialog(true)} data-testid="export-pdf">
+            <Icon name="export" /> PDF
+          </button>
           <button type="button" className="button primary" disabled={exportBlock !== null || working !== null} title={exportBlock ?? `Export the SVG (${shortcutLabel('export-svg', isMac)})`} onClick={() => void exportAs('svg')} data-testid="export-svg">
             <Icon name="export" /> Export SVG
           </button>
         </div>
       </header>
+
+      {pdfDialog && (
+        <PdfExportDialog
+          pageLabel={pageLabel}
+          bleedMm={doc.layout.bleedMm}
+          available={caps?.exportsPdf === true}
+          blocked={exportBlock}
+          working={working !== null}
+          onClose={() => setPdfDialog(false)}
+          onExport={() => {
+            setPdfDialog(false);
+            void exportAs('pdf');
+          }}
+        />
+      )}
 
       <main className="workspace">
         <aside className="panel editor" aria-label="Chart settings">
@@ -507,9 +579,21 @@ export function App({ host }: { host: HostApi }): ReactElement {
           </details>
         </aside>
 
-        <Preview svg={previewSvg} busy={render.busy || working !== null} overlay={overlay} pageLabel={pageLabel} elapsedMs={current ? render.elapsedMs : null} />
+        <Preview
+          svg={previewSvg}
+          busy={render.busy || working !== null}
+          overlay={isBlank(doc) ? null : overlay}
+          pageLabel={pageLabel}
+          elapsedMs={current ? render.elapsedMs : null}
+          emptyState={isBlank(doc) ? <BlankChartNote /> : undefined}
+          notice={recovery.offer ? <RecoveryBanner offer={recovery.offer} onRestore={restoreRecovered} onDiscard={recovery.discard} /> : null}
+          highlightLabel={pickedLabel}
+          onClearHighlight={() => setPickedLabel(null)}
+        />
 
-        <HonestyPanel state={honestyState} ppi={ppi} fixes={oneClickFixes} />
+        <RowPickContext.Provider value={rowPick}>
+          <HonestyPanel state={honestyState} ppi={ppi} fixes={oneClickFixes} />
+        </RowPickContext.Provider>
       </main>
 
       <footer className="statusbar">
@@ -522,6 +606,16 @@ export function App({ host }: { host: HostApi }): ReactElement {
         </span>
       </footer>
     </div>
+  );
+}
+
+function BlankChartNote(): ReactElement {
+  return (
+    <>
+      <h2>A new chart</h2>
+      <p>Type a category and its value in the first row of the Data table, then add rows. The chart and its honesty check appear as you type.</p>
+      <p>Paste a table from a spreadsheet into a cell to fill many rows at once.</p>
+    </>
   );
 }
 

@@ -8,12 +8,19 @@ export interface KeyLike {
   metaKey: boolean;
   shiftKey: boolean;
   altKey: boolean;
+  /** The physical key ("KeyE"); with Option held, macOS changes `key` but not `code`. */
+  code?: string;
 }
 
 export function shortcutCommand(e: KeyLike, isMac: boolean): MenuCommand | null {
   const primary = isMac ? e.metaKey && !e.ctrlKey : e.ctrlKey && !e.metaKey;
-  if (!primary || e.altKey) return null;
+  if (!primary) return null;
   const key = e.key.length === 1 ? e.key.toLowerCase() : e.key;
+  if (e.altKey) {
+    const physical = e.code ? e.code.replace(/^Key/, '').toLowerCase() : key;
+    if (e.shiftKey) return null;
+    return physical === 'e' ? 'export-pdf' : physical === 'c' ? 'copy-svg' : null;
+  }
   switch (key) {
     case 'z':
       return e.shiftKey ? 'redo' : 'undo';
@@ -26,6 +33,9 @@ export function shortcutCommand(e: KeyLike, isMac: boolean): MenuCommand | null 
       return e.shiftKey ? 'export-png' : 'export-svg';
     case 'o':
       return e.shiftKey ? null : 'open';
+    case 'n':
+      // Chromium keeps Ctrl+N for a new window; the desktop menu's accelerator delivers it there.
+      return e.shiftKey ? null : 'new';
     default:
       return null;
   }
@@ -41,9 +51,13 @@ export function shortcutLabel(command: MenuCommand, isMac: boolean): string {
     'export-png': [true, 'E'],
     undo: [false, 'Z'],
     redo: [true, 'Z'],
+    new: [false, 'N'],
+    'export-pdf': [false, 'E'],
+    'copy-svg': [false, 'C'],
   };
   const [shift, key] = parts[command];
-  return isMac ? `${shift ? '⇧' : ''}⌘${key}` : `Ctrl+${shift ? 'Shift+' : ''}${key}`;
+  const alt = command === 'export-pdf' || command === 'copy-svg';
+  return isMac ? `${alt ? '⌥' : ''}${shift ? '⇧' : ''}⌘${key}` : `Ctrl+${alt ? 'Alt+' : ''}${shift ? 'Shift+' : ''}${key}`;
 }
 
 export function isMacPlatform(): boolean {

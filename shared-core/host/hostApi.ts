@@ -30,6 +30,10 @@ export const HOST_CHANNELS = Object.freeze({
   exportSvg: 'tallyglyph:export-svg',
   exportPng: 'tallyglyph:export-png',
   listRecent: 'tallyglyph:list-recent',
+  exportPdf: 'tallyglyph:export-pdf',
+  saveRecovery: 'tallyglyph:save-recovery',
+  loadRecovery: 'tallyglyph:load-recovery',
+  clearRecovery: 'tallyglyph:clear-recovery',
 } as const);
 
 export type HostMethod = keyof typeof HOST_CHANNELS;
@@ -38,7 +42,7 @@ export type HostChannel = (typeof HOST_CHANNELS)[HostMethod];
 /** The one event channel from host to UI: a menu item or accelerator was used. */
 export const HOST_EVENT_MENU_COMMAND = 'tallyglyph:menu-command';
 
-export const MENU_COMMANDS = ['open', 'save', 'save-as', 'export-svg', 'export-png', 'undo', 'redo'] as const;
+export const MENU_COMMANDS = ['open', 'save', 'save-as', 'export-svg', 'export-png', 'undo', 'redo', 'new', 'export-pdf', 'copy-svg'] as const;
 export type MenuCommand = (typeof MENU_COMMANDS)[number];
 
 const HOST_METHODS = Object.keys(HOST_CHANNELS) as HostMethod[];
@@ -76,6 +80,8 @@ const capabilitiesSchema = z.strictObject({
   menuShortcuts: z.boolean(),
   /** Save can write back to the file it came from; false means every save is a download. */
   savesInPlace: z.boolean(),
+  /** The host writes PDF files, checked by an independent PDF renderer first (exportPdf is offered). */
+  exportsPdf: z.boolean().optional(),
 });
 
 const openedChartSchema = z.strictObject({
@@ -89,6 +95,12 @@ const savedChartSchema = z.strictObject({ documentId: documentId.nullable(), nam
 const exportedFileSchema = z.strictObject({
   name: fileName,
   bytes: z.number().int().min(0),
+});
+
+/** The recovery copy: the editor's state as JSON text, written every few seconds while there are unsaved changes. */
+const recoveryCopySchema = z.strictObject({
+  text: z.string().min(1).max(HOST_LIMITS.maxDocumentChars),
+  savedMs: z.number().int().min(0),
 });
 
 const recentChartSchema = z.strictObject({
@@ -122,6 +134,13 @@ export const hostRequestSchemas = {
     ppi: z.number().min(HOST_LIMITS.minPpi).max(HOST_LIMITS.maxPpi),
   }),
   listRecent: z.strictObject({}),
+  exportPdf: z.strictObject({
+    svg: z.string().min(1).max(HOST_LIMITS.maxSvgChars),
+    suggestedName: fileName,
+  }),
+  saveRecovery: z.strictObject({ text: z.string().min(1).max(HOST_LIMITS.maxDocumentChars) }),
+  loadRecovery: z.strictObject({}),
+  clearRecovery: z.strictObject({}),
 } as const;
 
 /** Schemas of each call's value on success; null means the user cancelled a dialog. */
@@ -132,6 +151,11 @@ export const hostValueSchemas = {
   exportSvg: exportedFileSchema.nullable(),
   exportPng: exportedFileSchema.nullable(),
   listRecent: z.array(recentChartSchema).max(HOST_LIMITS.maxRecent),
+  exportPdf: exportedFileSchema.nullable(),
+  saveRecovery: z.strictObject({ savedMs: z.number().int().min(0) }),
+  /** null: there is no recovery copy. */
+  loadRecovery: recoveryCopySchema.nullable(),
+  clearRecovery: z.boolean(),
 } as const;
 
 const hostErrorSchema = z.strictObject({ code: z.string().min(1).max(64), message: z.string().min(1).max(2000) });
@@ -143,6 +167,7 @@ export type OpenedChart = z.infer<typeof openedChartSchema>;
 export type SavedChart = z.infer<typeof savedChartSchema>;
 export type ExportedFile = z.infer<typeof exportedFileSchema>;
 export type RecentChart = z.infer<typeof recentChartSchema>;
+export type RecoveryCopy = z.infer<typeof recoveryCopySchema>;
 export type HostError = z.infer<typeof hostErrorSchema>;
 
 export type HostRequest<M extends HostMethod> = z.infer<(typeof hostRequestSchemas)[M]>;
@@ -157,6 +182,13 @@ export interface HostApi {
   exportSvg(request: HostRequest<'exportSvg'>): Promise<HostResult<ExportedFile | null>>;
   exportPng(request: HostRequest<'exportPng'>): Promise<HostResult<ExportedFile | null>>;
   listRecent(): Promise<HostResult<RecentChart[]>>;
+  /** A vector PDF of a checked chart SVG, re-checked from an independent renderer's pixels before it is written. */
+  exportPdf(request: HostRequest<'exportPdf'>): Promise<HostResult<ExportedFile | null>>;
+  /** Keeps (replaces) the one recovery copy; it outlives a crash or a reload. */
+  saveRecovery(request: HostRequest<'saveRecovery'>): Promise<HostResult<{ savedMs: number }>>;
+  loadRecovery(): Promise<HostResult<RecoveryCopy | null>>;
+  /** Drops the recovery copy (after a save, or when the designer discards it); true if there was one. */
+  clearRecovery(): Promise<HostResult<boolean>>;
   /** Listens for menu commands; returns the function that stops listening. */
   onMenuCommand(listener: (command: MenuCommand) => void): () => void;
 }

@@ -31,4 +31,5 @@ export type {
   RecentChart,
   SavedChart,
   ExportedFile,
+  RecoveryCopy,
 } from './hostApi';

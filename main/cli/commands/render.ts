@@ -6,16 +6,20 @@ import { isTallyError, TallyError } from '../../../shared-core/errors';
 import { exportChart, formatFromPath, parsePpi, type ExportResult } from '../../export/index';
 import { EXIT, type CliCommand, type CliIO } from '../types';
 import { ruleReportOf } from './check';
+import { runPdf } from './renderPdf';
 
-const USAGE = `Usage: tallyglyph render <chart.json> -o <out.svg|out.png> [--ppi 300] [--json]
+const USAGE = `Usage: tallyglyph render <chart.json> -o <out.svg|out.png|out.pdf> [--ppi 300] [--json]
 
 Lays out the chart, re-measures the written file and writes it only if every lie factor lies within
 0.95-1.05 (Tufte). A refused chart leaves any existing output file untouched. Findings of the rules
 beyond the lie factor (see \`tallyglyph check\`) are printed as warnings and advice; they do not stop the export.
+A PDF is vector, at the page size with bleed, and is checked again from poppler's pixels (pdftoppm);
+it is sRGB, not CMYK.
 
 Options:
-  -o, --output <file>  where to write; .svg or .png
-      --ppi <n>        PNG resolution in pixels per inch (default 300)
+  -o, --output <file>  where to write; .svg, .png or .pdf
+      --ppi <n>        PNG resolution in pixels per inch (default 300); for a PDF, the resolution
+                       of poppler's pixel check
       --json           print the full verification report as JSON on stdout
       --allow-all-zero write a chart whose values are all zero (it compares nothing,
                        so it is refused without this flag or "allowAllZero": true)
@@ -75,6 +79,8 @@ async function run(argv: string[], io: CliIO): Promise<number> {
   if (!values.output) return usageError(io, 'where to? Give -o out.svg or -o out.png.');
   const input = path.resolve(io.cwd, positionals[0]);
   const output = path.resolve(io.cwd, values.output);
+  if (!/\.(svg|png|pdf)$/i.test(output)) return usageError(io, `Cannot tell the format of "${path.basename(output)}": name the output file .svg, .png or .pdf.`);
+  if (path.extname(output).toLowerCase() === '.pdf') return runPdf(input, output, values.output, values.ppi, json, io);
   let ppi: number | undefined;
   try {
     const format = formatFromPath(output);

@@ -1,10 +1,11 @@
 // The honesty check: what the written file measures per category against the smallest value, the
 // worst pair, the spread, the verdict, print findings, and when refused, why and what to change.
-import type { ReactElement } from 'react';
+import { useContext, type ReactElement } from 'react';
 import type { HonestyView } from '../render/renderTypes';
 import { toUiWords } from '../honesty/findingWords';
 import { formatDrawn, formatFactor, formatGraphic, formatValue, inkPixels, meterPosition, readingSentence, rowFormula } from '../honesty/formatHonesty';
 import { Icon } from './Icon';
+import { pickableRow, RowPickContext } from '../preview/rowPick';
 
 const DRAWN_HEADINGS = { glyphs: 'Glyphs', mm: 'Height (mm)', mm2: 'Ink (mm²)', share: 'Filled' } as const;
 
@@ -182,6 +183,7 @@ export function HonestyPanel({ state, ppi, fixes = [] }: HonestyPanelProps): Rea
 }
 
 function CheckedDetails({ honesty, current, ppi, fixes }: { honesty: HonestyView; current: boolean; ppi: number; fixes: OneClickFix[] }): ReactElement {
+  const pick = useContext(RowPickContext);
   const { limits } = honesty;
   const unitWord = honesty.rows[0]?.graphicUnit ?? 'glyphs';
   const referenceRow = honesty.rows.find((r) => r.isReference);
@@ -211,7 +213,7 @@ function CheckedDetails({ honesty, current, ppi, fixes }: { honesty: HonestyView
             {honesty.rows.map((r) => {
               const outside = r.lieFactor !== null && (r.lieFactor < limits.low || r.lieFactor > limits.high);
               return (
-                <tr key={r.label} className={[r.isWorst ? 'worst' : '', outside || r.problem ? 'outside' : ''].join(' ').trim() || undefined} data-label={r.label}>
+                <tr key={r.label} className={[r.isWorst ? 'worst' : '', outside || r.problem ? 'outside' : ''].join(' ').trim() || undefined} data-label={r.label} {...pickableRow(pick, r.label, current)}>
                   <th scope="row" title={r.label}>{r.label}</th>
                   <td className="num">{formatValue(r.value)}</td>
                   <td className="num" title={formatGraphic(r.graphic, r.graphicUnit)}>{formatDrawn(r.graphic, r.graphicUnit)}</td>

@@ -14,6 +14,7 @@ import {
   type HostResult,
   type OpenedChart,
   type RecentChart,
+  type RecoveryCopy,
   type SavedChart,
 } from '../../../shared-core/host';
 import { TallyError } from '../../../shared-core/errors';
@@ -21,6 +22,8 @@ import { withPhysChunk } from '../../../shared-core/png';
 import { describeKinds, findOutsideReferences } from '../../../shared-core/audit';
 
 const RECENT_KEY = 'tallyglyph.recent/1';
+/** The recovery copy of unsaved work; survives a reload or a crashed tab (localStorage is per origin). */
+const RECOVERY_KEY = 'tallyglyph.recovery/1';
 /** Documents larger than this are listed as recent but not kept, so localStorage does not fill up. */
 const MAX_STORED_TEXT_CHARS = 512 * 1024;
 // Canvas limits vary by browser; these stay inside Chromium's and Firefox's (common practice, no source).
@@ -180,6 +183,7 @@ export function createBrowserHost(options: BrowserHostOptions = {}): HostApi {
     rasterizesPng: typeof document !== 'undefined' && typeof HTMLCanvasElement !== 'undefined',
     menuShortcuts: false,
     savesInPlace: false,
+    // No exportsPdf: a PDF is checked by rendering it with poppler, which only the desktop app's main process can run.
   };
 
   function remember(name: string, text: string | null): string {
@@ -247,8 +251,51 @@ export function createBrowserHost(options: BrowserHostOptions = {}): HostApi {
         readRecent(storage).map((e) => ({ documentId: e.documentId, name: e.name, location: e.text ? 'kept in this browser' : 'not kept (too large)', whenMs: e.whenMs })),
       ),
 
+    exportPdf: (request) =>
+      attempt(async (): Promise<ExportedFile | null> => {
+        parseHostRequest('exportPdf', request);
+        throw new TallyError('usage', 'PDF export needs the desktop app: it checks the PDF with an independent renderer before writing it, which a browser cannot run. Export the SVG and place it in your layout program instead.');
+      }),
+
+    saveRecovery: (request) =>
+      attempt(async () => {
+        const { text } = parseHostRequest('saveRecovery', request);
+        if (!storage) throw new TallyError('io-error', 'This browser keeps no local storage, so unsaved work cannot be kept for recovery.');
+        const copy: RecoveryCopy = { text, savedMs: Math.round(now()) };
+        try {
+          storage.setItem(RECOVERY_KEY, JSON.stringify(copy));
+        } catch {
+          throw new TallyError('io-error', 'The browser\'s storage is full: the recovery copy could not be kept. Save the chart to keep your work.');
+        }
+        return { savedMs: copy.savedMs };
+      }),
+
+    loadRecovery: () => attempt(async (): Promise<RecoveryCopy | null> => readRecovery(storage)),
+
+    clearRecovery: () =>
+      attempt(async () => {
+        const had = readRecovery(storage) !== null;
+        try {
+          storage?.removeItem(RECOVERY_KEY);
+        } catch {
+          // Nothing kept, nothing to clear.
+        }
+        return had;
+      }),
+
     onMenuCommand: () => () => undefined,
   };
+}
+
+function readRecovery(storage: Storage | null): RecoveryCopy | null {
+  try {
+    const parsed: unknown = JSON.parse(storage?.getItem(RECOVERY_KEY) ?? 'null');
+    if (typeof parsed !== 'object' || parsed === null) return null;
+    const { text, savedMs } = parsed as Record<string, unknown>;
+    return typeof text === 'string' && text.length > 0 && text.length <= HOST_LIMITS.maxDocumentChars && typeof savedMs === 'number' && Number.isInteger(savedMs) && savedMs >= 0 ? { text, savedMs } : null;
+  } catch {
+    return null;
+  }
 }
 
 function safeLocalStorage(): Storage | null {

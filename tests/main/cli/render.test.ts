@@ -79,7 +79,7 @@ describe('tallyglyph render', () => {
     const cases: [string[], RegExp][] = [
       [[writeDoc('bikes.json', BIKES)], /Give -o out\.svg or -o out\.png/],
       [[], /which chart document/],
-      [['bikes.json', '-o', 'out.pdf'], /name the output file \.svg or \.png/],
+      [['bikes.json', '-o', 'out.tiff'], /name the output file \.svg, \.png or \.pdf/],
       [['bikes.json', '-o', 'out.png', '--ppi', 'lots'], /--ppi must be a positive number/],
       [['bikes.json', '-o', 'out.png', '--ppi', '0'], /--ppi must be a positive number/],
       [['missing.json', '-o', 'out.svg'], /Could not read "missing\.json": there is no such file/],

@@ -309,7 +309,7 @@ describe('menuTemplate', () => {
     for (const isMac of [false, true]) {
       const items = menuTemplate({ isMac, devTools: false }).flatMap((m) => m.items);
       const commands = items.flatMap((i) => ('command' in i ? [i] : []));
-      expect(commands.map((c) => c.command).sort()).toEqual(['export-png', 'export-svg', 'open', 'redo', 'save', 'save-as', 'undo']);
+      expect(commands.map((c) => c.command).sort()).toEqual(['copy-svg', 'export-pdf', 'export-png', 'export-svg', 'new', 'open', 'redo', 'save', 'save-as', 'undo']);
       for (const item of commands) {
         expect(item.accelerator, item.label).toBeDefined();
         expect(shortcutCommand(asKey(item.accelerator!, isMac), isMac), `${item.label} ${item.accelerator}`).toBe(item.command);
