@@ -39,6 +39,8 @@ const host: HostApi = {
   exportSvg: (request) => call('exportSvg', request),
   exportPng: (request) => call('exportPng', request),
   listRecent: () => call('listRecent', {}),
+  openSupplied: (request) => call('openSupplied', request),
+  exportSheet: (request) => call('exportSheet', request),
   onMenuCommand(listener: (command: MenuCommand) => void) {
     const wrapped = (_event: unknown, payload: unknown) => {
       const command = parseMenuCommand(payload);

@@ -17,6 +17,7 @@ import { HonestyPanel, type HonestyState } from './components/HonestyPanel';
 import { BrandMark, Icon } from './components/Icon';
 import { PagePanel } from './components/PagePanel';
 import { Preview } from './components/Preview';
+import { AuditWorkspace } from './audit/AuditWorkspace';
 
 interface FileInfo {
   documentId: string | null;
@@ -49,6 +50,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const [notice, setNotice] = useState<Notice | null>(null);
   const [recent, setRecent] = useState<RecentChart[] | null>(null);
   const [working, setWorking] = useState<string | null>(null);
+  const [workspace, setWorkspace] = useState<'chart' | 'audit'>('chart');
   const noticeId = useRef(0);
   const recentWrap = useRef<HTMLDivElement>(null);
 
@@ -307,11 +309,15 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const pngOffered = caps?.rasterizesPng ?? false;
 
   return (
-    <div className="app">
+    <div className="app" data-workspace={workspace}>
       <header className="topbar">
         <div className="brand">
           <BrandMark />
           <span className="brand-name">Tallyglyph</span>
+        </div>
+        <div className="workspace-switch" role="tablist" aria-label="Workspace">
+          <button type="button" role="tab" aria-selected={workspace === 'chart'} onClick={() => setWorkspace('chart')} data-testid="workspace-chart">Chart</button>
+          <button type="button" role="tab" aria-selected={workspace === 'audit'} onClick={() => setWorkspace('audit')} data-testid="workspace-audit">Audit</button>
         </div>
         <div className="doc-name" title={file.name} data-testid="doc-name">
           <span className="doc-name-text">{file.name}</span>
@@ -414,7 +420,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
         </div>
       </header>
 
-      <main className="workspace">
+      <main className="workspace" hidden={workspace !== 'chart'}>
         <aside className="panel editor" aria-label="Chart settings">
           <details className="section" open>
             <summary>
@@ -457,6 +463,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
 
         <HonestyPanel state={honestyState} ppi={ppi} />
       </main>
+      <AuditWorkspace host={host} onNotice={say} hidden={workspace !== 'audit'} />
 
       <footer className="statusbar">
         <span className={notice ? `notice ${notice.tone}` : 'notice'} role="status" aria-live="polite" data-testid="notice">

@@ -20,6 +20,8 @@ export const HOST_LIMITS = Object.freeze({
   minPpi: 36,
   maxPpi: 1200,
   maxRecent: 12,
+  /** A supplied graphic, glyph or font file read for the app (the audit's own file size limit). */
+  maxSuppliedBytes: 16 * 1024 * 1024,
 });
 
 /** Every invoke channel the host answers; nothing else is forwarded by the preload or handled by main. */
@@ -30,6 +32,8 @@ export const HOST_CHANNELS = Object.freeze({
   exportSvg: 'tallyglyph:export-svg',
   exportPng: 'tallyglyph:export-png',
   listRecent: 'tallyglyph:list-recent',
+  openSupplied: 'tallyglyph:open-supplied',
+  exportSheet: 'tallyglyph:export-sheet',
 } as const);
 
 export type HostMethod = keyof typeof HOST_CHANNELS;
@@ -99,6 +103,16 @@ const recentChartSchema = z.strictObject({
   whenMs: z.number().int().min(0),
 });
 
+/** What a supplied file is opened for: the dialog offers the matching file types. */
+export const SUPPLIED_PURPOSES = ['audit', 'glyph', 'font'] as const;
+export type SuppliedPurpose = (typeof SUPPLIED_PURPOSES)[number];
+
+// Bytes cross as base64 (4 characters per 3 bytes), so the limit on the text follows the limit on the file.
+const suppliedFileSchema = z.strictObject({
+  name: fileName,
+  base64: z.string().max(Math.ceil(HOST_LIMITS.maxSuppliedBytes / 3) * 4).regex(/^[A-Za-z0-9+/]*={0,2}$/),
+});
+
 export const hostRequestSchemas = {
   getCapabilities: z.strictObject({}),
   openChart: z.strictObject({
@@ -122,6 +136,14 @@ export const hostRequestSchemas = {
     ppi: z.number().min(HOST_LIMITS.minPpi).max(HOST_LIMITS.maxPpi),
   }),
   listRecent: z.strictObject({}),
+  openSupplied: z.strictObject({ purpose: z.enum(SUPPLIED_PURPOSES) }),
+  /** A side-by-side audit sheet: not a chart, so the chart gate does not apply; the host writes it as given. */
+  exportSheet: z.strictObject({
+    svg: z.string().min(1).max(HOST_LIMITS.maxSvgChars),
+    suggestedName: fileName,
+    format: z.enum(['svg', 'png']),
+    ppi: z.number().min(HOST_LIMITS.minPpi).max(HOST_LIMITS.maxPpi),
+  }),
 } as const;
 
 /** Schemas of each call's value on success; null means the user cancelled a dialog. */
@@ -132,6 +154,8 @@ export const hostValueSchemas = {
   exportSvg: exportedFileSchema.nullable(),
   exportPng: exportedFileSchema.nullable(),
   listRecent: z.array(recentChartSchema).max(HOST_LIMITS.maxRecent),
+  openSupplied: suppliedFileSchema.nullable(),
+  exportSheet: exportedFileSchema.nullable(),
 } as const;
 
 const hostErrorSchema = z.strictObject({ code: z.string().min(1).max(64), message: z.string().min(1).max(2000) });
@@ -144,6 +168,7 @@ export type SavedChart = z.infer<typeof savedChartSchema>;
 export type ExportedFile = z.infer<typeof exportedFileSchema>;
 export type RecentChart = z.infer<typeof recentChartSchema>;
 export type HostError = z.infer<typeof hostErrorSchema>;
+export type SuppliedFileBytes = z.infer<typeof suppliedFileSchema>;
 
 export type HostRequest<M extends HostMethod> = z.infer<(typeof hostRequestSchemas)[M]>;
 export type HostValue<M extends HostMethod> = z.infer<(typeof hostValueSchemas)[M]>;
@@ -157,6 +182,10 @@ export interface HostApi {
   exportSvg(request: HostRequest<'exportSvg'>): Promise<HostResult<ExportedFile | null>>;
   exportPng(request: HostRequest<'exportPng'>): Promise<HostResult<ExportedFile | null>>;
   listRecent(): Promise<HostResult<RecentChart[]>>;
+  /** Asks for a supplied graphic, glyph or font file and returns its bytes; null when cancelled. */
+  openSupplied(request: HostRequest<'openSupplied'>): Promise<HostResult<SuppliedFileBytes | null>>;
+  /** Writes an audit sheet as SVG or PNG (with its resolution recorded). */
+  exportSheet(request: HostRequest<'exportSheet'>): Promise<HostResult<ExportedFile | null>>;
   /** Listens for menu commands; returns the function that stops listening. */
   onMenuCommand(listener: (command: MenuCommand) => void): () => void;
 }

@@ -16,6 +16,7 @@ export {
   hostFailure,
   failureFromError,
   safeFileName,
+  SUPPLIED_PURPOSES,
 } from './hostApi';
 export type {
   HostApi,
@@ -31,4 +32,6 @@ export type {
   RecentChart,
   SavedChart,
   ExportedFile,
+  SuppliedFileBytes,
+  SuppliedPurpose,
 } from './hostApi';
