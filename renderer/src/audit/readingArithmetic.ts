@@ -2,7 +2,7 @@
 // (size of effect shown ÷ size of effect in data, each effect being ratio − 1; The Visual Display of
 // Quantitative Information, 1983, p. 57), or the plain ratio form where the data differ by under 2%.
 import type { AuditReport } from '../../../shared-core/audit/auditReport';
-import { formatFactor, formatRatio } from '../../../shared-core/audit/formatNumbers';
+import { formatFactor, formatMeasure } from '../../../shared-core/audit/formatNumbers';
 import type { ReadingResult } from '../../../shared-core/audit/readings';
 
 export function readingArithmetic(r: ReadingResult, report: AuditReport, names: readonly string[]): string {
@@ -14,7 +14,7 @@ export function readingArithmetic(r: ReadingResult, report: AuditReport, names: 
   const a = pair.graphicRatio, b = pair.dataRatio;
   const who = `${nameOf(pair.mark)} against ${nameOf(pair.reference)}`;
   if (pair.basis === 'ratio') {
-    return `${who}: drawn ${formatRatio(a)}×, data ${formatRatio(b)}×; the values differ by under 2%, so the ratio form is used: ${formatRatio(a)} ÷ ${formatRatio(b)} = ${formatFactor(pair.lieFactor)}.`;
+    return `${who}: drawn ${formatMeasure(a)}×, data ${formatMeasure(b)}×; the values differ by under 2%, so the ratio form is used: ${formatMeasure(a)} ÷ ${formatMeasure(b)} = ${formatFactor(pair.lieFactor)}.`;
   }
-  return `${who}: (${formatRatio(a)} − 1) ÷ (${formatRatio(b)} − 1) = ${formatRatio(a - 1)} ÷ ${formatRatio(b - 1)} = ${formatFactor(pair.lieFactor)}.`;
+  return `${who}: (${formatMeasure(a)} − 1) ÷ (${formatMeasure(b)} − 1) = ${formatMeasure(a - 1)} ÷ ${formatMeasure(b - 1)} = ${formatFactor(pair.lieFactor)}.`;
 }
