@@ -18,6 +18,8 @@ import { BrandMark, Icon } from './components/Icon';
 import { PagePanel } from './components/PagePanel';
 import { Preview } from './components/Preview';
 import { AuditWorkspace } from './audit/AuditWorkspace';
+import { OwnGlyphsPanel } from './glyphs/OwnGlyphsPanel';
+import { setOwnGlyphs } from './glyphs/ownGlyphImages';
 
 interface FileInfo {
   documentId: string | null;
@@ -43,6 +45,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const isMac = useMemo(() => isMacPlatform(), []);
   const [history, send] = useReducer(historyReducer, demos[0].document, (d: unknown) => createHistory(fromChartDocument(d)));
   const doc = history.present;
+  // Glyph thumbnails anywhere in the window show the document's own glyphs.
+  setOwnGlyphs(doc.glyphs);
   const [file, setFile] = useState<FileInfo>({ documentId: null, name: demos[0].name, demoId: demos[0].id });
   const [savedDoc, setSavedDoc] = useState<EditorDocument>(doc);
   const [caps, setCaps] = useState<HostCapabilities | null>(null);
@@ -446,6 +450,15 @@ export function App({ host }: { host: HostApi }): ReactElement {
             </summary>
             <div className="section-body">
               <DrawingPanel doc={doc} dispatch={dispatch} seal={seal} chosenUnit={chosenUnit} defaultColors={palette} />
+            </div>
+          </details>
+          <details className="section" open>
+            <summary>
+              <span>Your glyphs</span>
+              <span className="summary-meta">{plural(Object.keys(doc.glyphs ?? {}).length, 'glyph')}</span>
+            </summary>
+            <div className="section-body">
+              <OwnGlyphsPanel doc={doc} dispatch={dispatch} host={host} onNotice={say} />
             </div>
           </details>
           <details className="section" open>

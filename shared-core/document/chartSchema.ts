@@ -91,8 +91,17 @@ export interface PageMm {
 }
 
 /** A validated chart with every default filled in. */
+/** A glyph the designer brought in (an SVG file or a font character), kept whole in the document. */
+export interface OwnGlyph {
+  svg: string;
+  /** Where it came from, for the designer: a file name, or a font and character. */
+  from?: string;
+}
+
 export interface ChartSpec {
   format: typeof CHART_FORMAT;
+  /** Glyphs of one's own by name ("own:…"); rows and the encoding refer to them like bundled names. */
+  glyphs?: Record<string, OwnGlyph>;
   title?: string;
   source?: string;
   data: DataRow[];
@@ -248,6 +257,24 @@ const pageSchema = z.strictObject(
   { error: expecting('{ "width", "height", "unit" }') },
 );
 
+// Own glyphs: at most 64, named "own:…" so a name never shadows a bundled glyph.
+const MAX_OWN_GLYPHS = 64;
+const OWN_GLYPH_NAME = /^own:[a-z0-9][a-z0-9-]{0,59}$/;
+const ownGlyphsSchema = z
+  .record(
+    z.string(),
+    z.strictObject({
+      svg: z.string({ error: expecting('SVG markup as text') }).min(1).max(MAX_INLINE_SVG_CHARS, { error: `is longer than the limit of ${MAX_INLINE_SVG_CHARS} characters` }),
+      from: z.string().max(200).optional(),
+    }),
+  )
+  .refine((g) => Object.keys(g).length <= MAX_OWN_GLYPHS, { error: `holds more than ${MAX_OWN_GLYPHS} glyphs` })
+  .superRefine((g, ctx) => {
+    for (const key of Object.keys(g)) {
+      if (!OWN_GLYPH_NAME.test(key)) ctx.addIssue({ code: 'custom', path: [key], message: `"${key.slice(0, 40)}" must be a name such as "own:studio-cup" (own: then lower-case letters, digits and dashes)` });
+    }
+  });
+
 /** The document as written (before defaults). Use parseChart for a ChartSpec. */
 export const chartDocumentSchema = z.strictObject({
   format: z.literal(CHART_FORMAT),
@@ -262,6 +289,7 @@ export const chartDocumentSchema = z.strictObject({
   page: pageSchema,
   outlineText: flag().default(true),
   useReferences: flag().default(false),
+  glyphs: ownGlyphsSchema.optional(),
 });
 
 /** A chart document as a designer or a script writes it. */
@@ -437,6 +465,7 @@ export function parseChart(json: unknown): ChartSpec {
   };
   if (d.title !== undefined) spec.title = d.title;
   if (d.source !== undefined) spec.source = d.source;
+  if (d.glyphs !== undefined) spec.glyphs = Object.fromEntries(Object.entries(d.glyphs).map(([k, g]) => [k, { ...g }]));
   return spec;
 }
 
@@ -459,5 +488,6 @@ export function chartToDocument(spec: ChartSpec): ChartDocument {
   };
   if (spec.title !== undefined) doc.title = spec.title;
   if (spec.source !== undefined) doc.source = spec.source;
+  if (spec.glyphs !== undefined) doc.glyphs = Object.fromEntries(Object.entries(spec.glyphs).map(([k, g]) => [k, { ...g }]));
   return doc;
 }

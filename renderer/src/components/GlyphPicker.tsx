@@ -3,12 +3,14 @@ import { useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactElemen
 import { createPortal } from 'react-dom';
 import { findGlyphs, getGlyph, type GlyphEntry } from '../../../shared-core/glyph';
 import type { GlyphRef } from '../../../shared-core/document';
+import { ownGlyphImageUrl } from '../glyphs/ownGlyphImages';
 
 const PREVIEW_INK = '#27332e';
 const urlCache = new Map<string, string>();
 
 /** A data URL of the bundled glyph for an <img>; glyph markup is ours, bundled, and drawn as an image (no script runs). */
 export function glyphImageUrl(name: string): string | null {
+  if (name.startsWith('own:')) return ownGlyphImageUrl(name);
   const cached = urlCache.get(name);
   if (cached) return cached;
   let entry: GlyphEntry;
