@@ -75,8 +75,11 @@ export function fontHasCharacter(font: Font, codePoint: number): boolean {
   return glyph.index > 0;
 }
 
-/** The glyph of one character as cleaned, measured SVG. Throws TallyError when the font lacks it or it has no ink. */
-export function glyphFromFont(font: Font, codePoint: number, fontLabel = fontFamilyName(font)): FontGlyph {
+/**
+ * The raw outline of one character as SVG markup (not yet cleaned or measured): for thumbnails, and
+ * the input to glyphFromFont. Throws TallyError when the font lacks the character or it has no outline.
+ */
+export function characterOutlineSvg(font: Font, codePoint: number, fontLabel = fontFamilyName(font)): { svg: string; glyphName: string } {
   const char = String.fromCodePoint(codePoint);
   const glyph = font.charToGlyph(char);
   if (glyph.index === 0) throw new TallyError('glyph-unknown', `${fontLabel} has no glyph for ${codePointLabel(codePoint)} (${char}).`);
@@ -84,11 +87,25 @@ export function glyphFromFont(font: Font, codePoint: number, fontLabel = fontFam
   const ascender = font.ascender;
   const descender = font.descender;
   // At size = units per em, one path unit is one font unit; the baseline sits at y = ascender (y down).
-  const d = glyph.getPath(0, ascender, upem).toPathData(2);
+  // Font contours are closed by definition (TrueType and CFF alike); opentype.js may leave out the
+  // final Z, so each contour is closed here rather than reported as an open path.
+  const d = glyph
+    .getPath(0, ascender, upem)
+    .toPathData(2)
+    .split(/(?=M)/)
+    .map((contour) => contour.trim())
+    .filter(Boolean)
+    .map((contour) => (/Z$/i.test(contour) ? contour : `${contour}Z`))
+    .join('');
   if (!d.trim()) throw new TallyError('glyph-empty', `The ${codePointLabel(codePoint)} (${char}) glyph of ${fontLabel} has no outline (it is a space or a control character).`);
   const width = glyph.advanceWidth && glyph.advanceWidth > 0 ? glyph.advanceWidth : upem;
   const height = ascender - descender;
-  const svg = `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}"><path d="${d}"/></svg>`;
+  return { svg: `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}"><path d="${d}"/></svg>`, glyphName: glyph.name ?? '' };
+}
+
+/** The glyph of one character as cleaned, measured SVG. Throws TallyError when the font lacks it or it has no ink. */
+export function glyphFromFont(font: Font, codePoint: number, fontLabel = fontFamilyName(font)): FontGlyph {
+  const { svg, glyphName } = characterOutlineSvg(font, codePoint, fontLabel);
   const imported = importOwnGlyph(svg);
-  return { ...imported, codePoint, glyphName: glyph.name ?? '', from: `${codePointLabel(codePoint)} ${char} from ${fontLabel}` };
+  return { ...imported, codePoint, glyphName, from: `${codePointLabel(codePoint)} ${String.fromCodePoint(codePoint)} from ${fontLabel}` };
 }

@@ -11,6 +11,8 @@ import type { EditorDocument } from '../editor/editorDocument';
 import { base64ToBytes, decodeSvgText } from '../audit/readSupplied';
 import { Icon } from '../components/Icon';
 import { ownGlyphImageUrl, setOwnGlyphs } from './ownGlyphImages';
+import { FontGlyphPicker } from './FontGlyphPicker';
+import type { FontGlyph } from '../../../shared-core/glyph/glyphFromFont';
 import './glyphs.css';
 
 interface Props {
@@ -32,6 +34,7 @@ function percent(share: number): string {
 
 export function OwnGlyphsPanel({ doc, dispatch, host, onNotice }: Props): ReactElement {
   const [last, setLast] = useState<LastImport | null>(null);
+  const [fromFont, setFromFont] = useState(false);
   // Thumbnails elsewhere (the glyph button, row pickers) read the same glyphs; App sets them before
   // rendering its panels, this keeps them right when the panel is used on its own.
   useEffect(() => setOwnGlyphs(doc.glyphs), [doc.glyphs]);
@@ -66,13 +69,24 @@ export function OwnGlyphsPanel({ doc, dispatch, host, onNotice }: Props): ReactE
     }
   };
 
+  const addFontGlyph = (glyph: FontGlyph) => {
+    const name = ownGlyphName(glyph.glyphName && !/^(uni|u)[0-9a-f]+$/i.test(glyph.glyphName) ? glyph.glyphName : `u${glyph.codePoint.toString(16)}`, Object.keys(doc.glyphs ?? {}));
+    dispatch({ type: 'add-own-glyph', name, glyph: { svg: glyph.svg, from: glyph.from.slice(0, 200) } });
+    setLast({ name, from: glyph.from, warnings: glyph.warnings });
+    onNotice(`Added ${glyph.from} as ${name}: its ink fills ${percent(glyph.boxFraction)} of its box. It is now the chart's glyph.`);
+  };
+
   return (
     <div className="own-glyphs" data-testid="own-glyphs">
       <div className="own-glyph-actions">
         <button type="button" className="button" onClick={() => void importSvg()} data-testid="import-svg-glyph">
           <Icon name="open" /> Import SVG glyph…
         </button>
+        <button type="button" className="button" aria-expanded={fromFont} onClick={() => setFromFont(!fromFont)} data-testid="font-glyph">
+          From a font character…
+        </button>
       </div>
+      {fromFont && <FontGlyphPicker host={host} onPick={addFontGlyph} onClose={() => setFromFont(false)} onNotice={onNotice} />}
       {last && last.warnings.length > 0 && (
         <div className="own-glyph-warnings" role="note" data-testid="glyph-warnings">
           <p className="own-glyph-warnings-title">About {last.from}:</p>

@@ -65,3 +65,13 @@ describe('glyphFromFont', () => {
     expect(Math.abs((report.lieFactor.worst ?? 0) - 1)).toBeLessThan(0.001);
   });
 });
+
+describe('font contours', () => {
+  it('are closed, so no font glyph is reported as an open path', () => {
+    for (const cp of [0x2605, 0x2713, 0x2665, 0x2602]) {
+      const g = glyphFromFont(font, cp);
+      expect(g.warnings.map((w) => w.code)).not.toContain('open-path');
+      expect(g.svg).toMatch(/Z"/);
+    }
+  });
+});
