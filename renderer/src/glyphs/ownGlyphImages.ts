@@ -21,3 +21,8 @@ export function ownGlyphImageUrl(name: string): string | null {
   urls.set(key, url);
   return url;
 }
+
+/** The document's own glyphs as [name, glyph] pairs, in the document's order. */
+export function ownGlyphEntries(): Array<[string, OwnGlyph]> {
+  return Object.entries(current);
+}

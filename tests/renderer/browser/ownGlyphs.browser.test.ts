@@ -140,6 +140,37 @@ describe.skipIf(!haveChromium)(`own glyphs in Chromium (skipped when ${CHROMIUM}
     expect(await page.locator('[data-testid=font-glyph-picker] .field-problem').textContent()).toBe('Noto Sans Symbols 2 has no glyph for U+266A (♪).');
   }, 120_000);
 
+  it('browses the bundled glyphs by category, each with its ink share of its box, and lists own glyphs under yours', async () => {
+    await page.getByTestId('chart-glyph').click();
+    await page.getByRole('radio', { name: 'shapes' }).click();
+    const cells = page.locator('.glyph-picker .glyph-cell');
+    const titles = await cells.evaluateAll((els) => els.map((el) => el.getAttribute('title') ?? ''));
+    expect(titles.length).toBeGreaterThan(3);
+    expect(titles.every((t) => t.includes('(shapes'))).toBe(true);
+    // Closed forms: a disc fills π/4 = 78.5% of its box; the bundled square (side 192, corner radius 16)
+    // fills 1 − (4 − π)·16² / 192² = 99.4%.
+    const shareOf = (name: string) => page.locator(`.glyph-picker .glyph-cell[title^="${name} ("] [data-testid=glyph-share]`).textContent();
+    expect(await shareOf('circle')).toBe('79%');
+    expect(await shareOf('square')).toBe('99%');
+    await screenshot(page, 'glyphs-04-browse-shapes');
+    // Search works within a category: "tractor" is in transport, not in shapes.
+    await page.getByLabel('Search glyphs').fill('tractor');
+    expect(await cells.count()).toBe(0);
+    await page.getByRole('radio', { name: 'transport' }).click();
+    expect(await cells.first().getAttribute('title')).toMatch(/^tractor \(transport/);
+    await page.keyboard.press('Escape');
+
+    // An own glyph appears under "yours" and can be picked for the chart from there.
+    await page.getByTestId('font-glyph').click();
+    await expect.poll(() => page.getByTestId('font-glyph-font').textContent(), { timeout: 20_000 }).toBe('Noto Sans Symbols 2');
+    await page.getByRole('option', { name: 'U+25A0 ■' }).click();
+    await page.getByTestId('chart-glyph').click();
+    await page.getByRole('radio', { name: 'yours' }).click();
+    expect(await cells.count()).toBe(1);
+    // A filled square fills its whole box (closed form: 100%).
+    expect(await cells.first().locator('[data-testid=glyph-share]').textContent()).toBe('100%');
+  }, 120_000);
+
   it.skipIf(!fs.existsSync(SYSTEM_FONT))('takes a letter from a font file the designer opens (TTF through opentype.js)', async () => {
     await page.getByTestId('font-glyph').click();
     await expect.poll(() => page.getByTestId('font-glyph-font').textContent(), { timeout: 20_000 }).toBe('Noto Sans Symbols 2');
