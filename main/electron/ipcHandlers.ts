@@ -29,9 +29,11 @@ import {
   type HostResult,
   type MenuCommand,
   type RecentChart,
+  type SuppliedPurpose,
 } from '../../shared-core/host';
 import { exportFromRender } from '../export';
 import { pdfFromRender } from '../export/pdfExport';
+import { ppiToPpm, rasterizeSvg, readPhysChunk } from '../raster';
 import { writeFileAtomic } from '../io/atomicWrite';
 
 export type FileKind = 'chart' | 'svg' | 'png' | 'pdf';
@@ -44,15 +46,25 @@ export const FILE_FILTERS: Readonly<Record<FileKind, { name: string; extensions:
   pdf: { name: 'PDF document', extensions: ['pdf'] },
 });
 
+/** File filters for opening a supplied file, by what it is opened for. */
+export const OPEN_FILTERS: Readonly<Record<SuppliedPurpose, { name: string; extensions: string[] }>> = Object.freeze({
+  audit: { name: 'Supplied graphic (SVG, PNG, JPEG)', extensions: ['svg', 'png', 'jpg', 'jpeg'] },
+  glyph: { name: 'SVG glyph', extensions: ['svg'] },
+  font: { name: 'Font (TTF, OTF, WOFF)', extensions: ['ttf', 'otf', 'woff'] },
+});
+
 /** Native dialogs, as main.ts provides them; null means the user cancelled. */
 export interface DialogPort {
-  chooseOpenPath(): Promise<string | null>;
+  /** Without a purpose: a chart document. */
+  chooseOpenPath(purpose?: SuppliedPurpose): Promise<string | null>;
   chooseSavePath(options: { suggestedName: string; kind: FileKind; folder: string | null }): Promise<string | null>;
 }
 
 export interface FilePort {
   readText(filePath: string, maxBytes: number): Promise<string>;
   writeAtomic(filePath: string, data: string | Uint8Array): Promise<void>;
+  /** Raw bytes with the size checked before reading; default: nodeFiles.readBytes. */
+  readBytes?(filePath: string, maxBytes: number): Promise<Uint8Array>;
 }
 
 export interface HandlerDeps {
@@ -76,6 +88,8 @@ export interface HandlerDeps {
   /** Where the recovery copy is kept; default recovery.json beside the recent-files list. */
   recoveryFile?: string;
   now?: () => number;
+  /** An audit sheet SVG to PNG bytes with its resolution recorded; default: sheetPng. */
+  buildSheetPng?: (svg: string, ppi: number) => Uint8Array;
 }
 
 export type HostHandler = (payload: unknown) => Promise<HostResult<unknown>>;
@@ -166,7 +180,28 @@ export function verifiedPng(svg: string, ppi: number): Uint8Array {
   return exportFromRender(rendered, 'png', { ppi }).bytes;
 }
 
+/**
+ * PNG bytes of an audit sheet, as `tallyglyph sheet` makes them: drawn on white, and refused when the
+ * pHYs chunk does not record `ppi` (a PNG without its resolution is placed at the wrong size).
+ */
+export function sheetPng(svg: string, ppi: number): Uint8Array {
+  const image = rasterizeSvg(svg, { ppi, background: '#ffffff' });
+  const phys = readPhysChunk(image.png);
+  if (!phys || phys.unit !== 1 || phys.ppmX !== ppiToPpm(ppi)) throw new TallyError('raster-invalid', `The PNG does not record its resolution of ${ppi} ppi; nothing was written.`);
+  return image.png;
+}
+
 export const nodeFiles: FilePort = {
+  async readBytes(filePath, maxBytes) {
+    const stat = await fs.stat(filePath);
+    const name = path.basename(filePath);
+    if (!stat.isFile()) throw new TallyError('io-error', `"${name}" is not a file.`);
+    if (stat.size > maxBytes) throw new TallyError('io-error', `"${name}" is ${(stat.size / 1e6).toFixed(1)} MB; the limit for a supplied file is ${(maxBytes / 1e6).toFixed(1)} MB.`);
+    const bytes = new Uint8Array(await fs.readFile(filePath));
+    // The file may have grown between stat and read.
+    if (bytes.length > maxBytes) throw new TallyError('io-error', `"${name}" is larger than the ${(maxBytes / 1e6).toFixed(1)} MB limit for a supplied file.`);
+    return bytes;
+  },
   async readText(filePath, maxBytes) {
     const stat = await fs.stat(filePath);
     if (!stat.isFile()) throw new TallyError('io-error', `"${path.basename(filePath)}" is not a file.`);
@@ -291,6 +326,8 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
   const now = deps.now ?? Date.now;
   const buildPng = deps.buildPng ?? verifiedPng;
   const checkExport = deps.checkExport ?? exportRefusal;
+  const buildSheetPng = deps.buildSheetPng ?? sheetPng;
+  const readBytes = files.readBytes ?? nodeFiles.readBytes!;
   const recent = createRecentStore(deps.recentFile, files, now);
   const buildPdf = deps.buildPdf ?? verifiedPdf;
   const recovery = createRecoveryStore(deps.recoveryFile ?? path.join(path.dirname(deps.recentFile), 'recovery.json'), files, now);
@@ -327,8 +364,8 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
     };
   }
 
-  async function writeExport(kind: 'svg' | 'png' | 'pdf', svg: string, suggestedName: string, bytes: () => Uint8Array | string | Promise<Uint8Array>): Promise<{ name: string; bytes: number } | null> {
-    const refusal = checkExport(svg);
+  async function writeExport(kind: 'svg' | 'png' | 'pdf', svg: string, suggestedName: string, bytes: () => Uint8Array | string | Promise<Uint8Array>, refusalOf: (svg: string) => string | null = checkExport): Promise<{ name: string; bytes: number } | null> {
+    const refusal = refusalOf(svg);
     if (refusal) throw new TallyError('gate-refused', refusal);
     // Built (and for PNG and PDF re-checked) before the dialog: a refusal never asks where to write.
     const data = await bytes();
@@ -393,6 +430,34 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
     saveRecovery: guarded('saveRecovery', async (request) => recovery.save(request.text)),
     loadRecovery: guarded('loadRecovery', async () => recovery.load()),
     clearRecovery: guarded('clearRecovery', async () => recovery.clear()),
+
+    openSupplied: guarded('openSupplied', async (request) => {
+      const filePath = await deps.dialogs.chooseOpenPath(request.purpose);
+      if (!filePath) return null;
+      let bytes: Uint8Array;
+      try {
+        bytes = await readBytes(filePath, HOST_LIMITS.maxSuppliedBytes);
+      } catch (e) {
+        if (e instanceof TallyError) throw e;
+        const code = (e as NodeJS.ErrnoException).code;
+        const reason = code === 'ENOENT' ? 'it no longer exists' : code === 'EACCES' || code === 'EPERM' ? 'permission was denied' : (e as Error).message;
+        throw new TallyError('io-error', `Could not open "${path.basename(filePath)}": ${reason}.`);
+      }
+      lastFolder = path.dirname(filePath);
+      return { name: displayName(filePath), base64: Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength).toString('base64') };
+    }),
+
+    // A sheet is no chart (it shows the distorted original on purpose), so the lie-factor gate does not
+    // apply; active content is still refused, as for every file the app writes.
+    exportSheet: guarded('exportSheet', async (request) => {
+      const sheetRefusal = (svg: string) => {
+        const active = activeContentRefusal(svg);
+        return active ? `Not exported: ${active}` : null;
+      };
+      return request.format === 'svg'
+        ? writeExport('svg', request.svg, request.suggestedName, () => request.svg, sheetRefusal)
+        : writeExport('png', request.svg, request.suggestedName, () => buildSheetPng(request.svg, request.ppi), sheetRefusal);
+    }),
 
     listRecent: guarded('listRecent', async () => {
       const entries = await recent.list();

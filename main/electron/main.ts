@@ -5,7 +5,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { app, BrowserWindow, dialog, ipcMain, Menu, session, shell, type MenuItemConstructorOptions } from 'electron';
 import { HOST_EVENT_MENU_COMMAND } from '../../shared-core/host';
-import { createHostHandlers, exportRefusal, FILE_FILTERS, menuTemplate, registerHostHandlers, trustedUrlChecker, verifiedPng, type DialogPort, type MenuSpec } from './ipcHandlers';
+import { createHostHandlers, exportRefusal, FILE_FILTERS, menuTemplate, OPEN_FILTERS, registerHostHandlers, trustedUrlChecker, verifiedPng, type DialogPort, type MenuSpec } from './ipcHandlers';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const rendererDir = path.join(here, '../renderer');
@@ -16,8 +16,8 @@ let mainWindow: BrowserWindow | null = null;
 
 function electronDialogs(): DialogPort {
   return {
-    async chooseOpenPath() {
-      const options = { properties: ['openFile' as const], filters: [FILE_FILTERS.chart, { name: 'All files', extensions: ['*'] }] };
+    async chooseOpenPath(purpose) {
+      const options = { properties: ['openFile' as const], filters: [purpose ? OPEN_FILTERS[purpose] : FILE_FILTERS.chart, { name: 'All files', extensions: ['*'] }] };
       const result = mainWindow ? await dialog.showOpenDialog(mainWindow, options) : await dialog.showOpenDialog(options);
       return result.canceled || result.filePaths.length === 0 ? null : result.filePaths[0];
     },

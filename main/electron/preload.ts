@@ -43,6 +43,8 @@ const host: HostApi = {
   saveRecovery: (request) => call('saveRecovery', request),
   loadRecovery: () => call('loadRecovery', {}),
   clearRecovery: () => call('clearRecovery', {}),
+  openSupplied: (request) => call('openSupplied', request),
+  exportSheet: (request) => call('exportSheet', request),
   onMenuCommand(listener: (command: MenuCommand) => void) {
     const wrapped = (_event: unknown, payload: unknown) => {
       const command = parseMenuCommand(payload);

@@ -24,6 +24,9 @@ import { blankDocument, isBlank } from './documents/blankChart';
 import { copySvgToClipboard } from './documents/copySvg';
 import { useRecovery } from './documents/useRecovery';
 import { RowPickContext, type RowPick } from './preview/rowPick';
+import { AuditWorkspace } from './audit/AuditWorkspace';
+import { OwnGlyphsPanel } from './glyphs/OwnGlyphsPanel';
+import { setOwnGlyphs } from './glyphs/ownGlyphImages';
 
 interface FileInfo {
   documentId: string | null;
@@ -49,6 +52,8 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const isMac = useMemo(() => isMacPlatform(), []);
   const [history, send] = useReducer(historyReducer, demos[0].document, (d: unknown) => createHistory(fromChartDocument(d)));
   const doc = history.present;
+  // Glyph thumbnails anywhere in the window show the document's own glyphs.
+  setOwnGlyphs(doc.glyphs);
   const [file, setFile] = useState<FileInfo>({ documentId: null, name: demos[0].name, demoId: demos[0].id });
   const [savedDoc, setSavedDoc] = useState<EditorDocument>(doc);
   const [caps, setCaps] = useState<HostCapabilities | null>(null);
@@ -61,6 +66,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const [pdfDialog, setPdfDialog] = useState(false);
   const [pickedLabel, setPickedLabel] = useState<string | null>(null);
   const rowPick: RowPick = useMemo(() => ({ pickedLabel, onPick: (label: string) => setPickedLabel((l) => (l === label ? null : label)) }), [pickedLabel]);
+  const [workspace, setWorkspace] = useState<'chart' | 'audit'>('chart');
   const noticeId = useRef(0);
   const recentWrap = useRef<HTMLDivElement>(null);
 
@@ -402,11 +408,15 @@ export function App({ host }: { host: HostApi }): ReactElement {
   const pngOffered = caps?.rasterizesPng ?? false;
 
   return (
-    <div className="app">
+    <div className="app" data-workspace={workspace}>
       <header className="topbar">
         <div className="brand">
           <BrandMark />
           <span className="brand-name">Tallyglyph</span>
+        </div>
+        <div className="workspace-switch" role="tablist" aria-label="Workspace">
+          <button type="button" role="tab" aria-selected={workspace === 'chart'} onClick={() => setWorkspace('chart')} data-testid="workspace-chart">Chart</button>
+          <button type="button" role="tab" aria-selected={workspace === 'audit'} onClick={() => setWorkspace('audit')} data-testid="workspace-audit">Audit</button>
         </div>
         <div className="doc-name" title={displayName} data-testid="doc-name">
           <span className="doc-name-text">{displayName}</span>
@@ -540,7 +550,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
         />
       )}
 
-      <main className="workspace">
+      <main className="workspace" hidden={workspace !== 'chart'}>
         <aside className="panel editor" aria-label="Chart settings">
           <details className="section" open>
             <summary>
@@ -570,6 +580,15 @@ export function App({ host }: { host: HostApi }): ReactElement {
           </details>
           <details className="section" open>
             <summary>
+              <span>Your glyphs</span>
+              <span className="summary-meta">{plural(Object.keys(doc.glyphs ?? {}).length, 'glyph')}</span>
+            </summary>
+            <div className="section-body">
+              <OwnGlyphsPanel doc={doc} dispatch={dispatch} host={host} onNotice={say} />
+            </div>
+          </details>
+          <details className="section" open>
+            <summary>
               <span>Page</span>
               <span className="summary-meta">{trimNumber(doc.page.width)} × {trimNumber(doc.page.height)} {doc.page.unit}</span>
             </summary>
@@ -595,6 +614,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
           <HonestyPanel state={honestyState} ppi={ppi} fixes={oneClickFixes} />
         </RowPickContext.Provider>
       </main>
+      <AuditWorkspace host={host} onNotice={say} hidden={workspace !== 'audit'} />
 
       <footer className="statusbar">
         <span className={notice ? `notice ${notice.tone}` : 'notice'} role="status" aria-live="polite" data-testid="notice">

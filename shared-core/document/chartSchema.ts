@@ -101,9 +101,18 @@ export interface PageMm {
   given: { width: number; height: number; unit: PageUnit };
 }
 
+/** A glyph the designer brought in (an SVG file or a font character), kept whole in the document. */
+export interface OwnGlyph {
+  svg: string;
+  /** Where it came from, for the designer: a file name, or a font and character. */
+  from?: string;
+}
+
 /** A validated chart with every default filled in. Standardisation and dismissed findings: see ChartExtras. */
 export interface ChartSpec extends ChartExtras {
   format: typeof CHART_FORMAT;
+  /** Glyphs of one's own by name ("own:…"); rows and the encoding refer to them like bundled names. */
+  glyphs?: Record<string, OwnGlyph>;
   title?: string;
   source?: string;
   data: DataRow[];
@@ -285,6 +294,24 @@ const pageSchema = z.strictObject(
   { error: expecting('{ "width", "height", "unit" }') },
 );
 
+// Own glyphs: at most 64, named "own:…" so a name never shadows a bundled glyph.
+const MAX_OWN_GLYPHS = 64;
+const OWN_GLYPH_NAME = /^own:[a-z0-9][a-z0-9-]{0,59}$/;
+const ownGlyphsSchema = z
+  .record(
+    z.string(),
+    z.strictObject({
+      svg: z.string({ error: expecting('SVG markup as text') }).min(1).max(MAX_INLINE_SVG_CHARS, { error: `is longer than the limit of ${MAX_INLINE_SVG_CHARS} characters` }),
+      from: z.string().max(200).optional(),
+    }),
+  )
+  .refine((g) => Object.keys(g).length <= MAX_OWN_GLYPHS, { error: `holds more than ${MAX_OWN_GLYPHS} glyphs` })
+  .superRefine((g, ctx) => {
+    for (const key of Object.keys(g)) {
+      if (!OWN_GLYPH_NAME.test(key)) ctx.addIssue({ code: 'custom', path: [key], message: `"${key.slice(0, 40)}" must be a name such as "own:studio-cup" (own: then lower-case letters, digits and dashes)` });
+    }
+  });
+
 /** The document as written (before defaults). Use parseChart for a ChartSpec. */
 export const chartDocumentSchema = z.strictObject({
   format: z.literal(CHART_FORMAT),
@@ -302,6 +329,7 @@ export const chartDocumentSchema = z.strictObject({
   /** A chart whose values are all zero compares nothing; it is written only when the document asks. */
   allowAllZero: flag().optional(),
   ...CHART_EXTRA_FIELDS,
+  glyphs: ownGlyphsSchema.optional(),
 });
 
 /** A chart document as a designer or a script writes it. */
@@ -480,6 +508,7 @@ export function parseChart(json: unknown): ChartSpec {
   if (d.source !== undefined) spec.source = d.source;
   if (d.allowAllZero === true) spec.allowAllZero = true;
   Object.assign(spec, chartExtrasOf(d));
+  if (d.glyphs !== undefined) spec.glyphs = Object.fromEntries(Object.entries(d.glyphs).map(([k, g]) => [k, { ...g }]));
   return spec;
 }
 
@@ -504,5 +533,6 @@ export function chartToDocument(spec: ChartSpec): ChartDocument {
   if (spec.source !== undefined) doc.source = spec.source;
   if (spec.allowAllZero === true) doc.allowAllZero = true;
   Object.assign(doc, chartExtrasOf(spec));
+  if (spec.glyphs !== undefined) doc.glyphs = Object.fromEntries(Object.entries(spec.glyphs).map(([k, g]) => [k, { ...g }]));
   return doc;
 }

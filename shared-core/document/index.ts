@@ -22,6 +22,7 @@ export type {
   FillEncoding,
   FillTo,
   GlyphRef,
+  OwnGlyph,
   LayoutOptions,
   MarginsMm,
   PageMm,

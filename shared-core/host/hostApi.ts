@@ -20,6 +20,8 @@ export const HOST_LIMITS = Object.freeze({
   minPpi: 36,
   maxPpi: 1200,
   maxRecent: 12,
+  /** A supplied graphic, glyph or font file read for the app (the audit's own file size limit). */
+  maxSuppliedBytes: 16 * 1024 * 1024,
 });
 
 /** Every invoke channel the host answers; nothing else is forwarded by the preload or handled by main. */
@@ -34,6 +36,8 @@ export const HOST_CHANNELS = Object.freeze({
   saveRecovery: 'tallyglyph:save-recovery',
   loadRecovery: 'tallyglyph:load-recovery',
   clearRecovery: 'tallyglyph:clear-recovery',
+  openSupplied: 'tallyglyph:open-supplied',
+  exportSheet: 'tallyglyph:export-sheet',
 } as const);
 
 export type HostMethod = keyof typeof HOST_CHANNELS;
@@ -111,6 +115,16 @@ const recentChartSchema = z.strictObject({
   whenMs: z.number().int().min(0),
 });
 
+/** What a supplied file is opened for: the dialog offers the matching file types. */
+export const SUPPLIED_PURPOSES = ['audit', 'glyph', 'font'] as const;
+export type SuppliedPurpose = (typeof SUPPLIED_PURPOSES)[number];
+
+// Bytes cross as base64 (4 characters per 3 bytes), so the limit on the text follows the limit on the file.
+const suppliedFileSchema = z.strictObject({
+  name: fileName,
+  base64: z.string().max(Math.ceil(HOST_LIMITS.maxSuppliedBytes / 3) * 4).regex(/^[A-Za-z0-9+/]*={0,2}$/),
+});
+
 export const hostRequestSchemas = {
   getCapabilities: z.strictObject({}),
   openChart: z.strictObject({
@@ -141,6 +155,14 @@ export const hostRequestSchemas = {
   saveRecovery: z.strictObject({ text: z.string().min(1).max(HOST_LIMITS.maxDocumentChars) }),
   loadRecovery: z.strictObject({}),
   clearRecovery: z.strictObject({}),
+  openSupplied: z.strictObject({ purpose: z.enum(SUPPLIED_PURPOSES) }),
+  /** A side-by-side audit sheet: not a chart, so the chart gate does not apply; the host writes it as given. */
+  exportSheet: z.strictObject({
+    svg: z.string().min(1).max(HOST_LIMITS.maxSvgChars),
+    suggestedName: fileName,
+    format: z.enum(['svg', 'png']),
+    ppi: z.number().min(HOST_LIMITS.minPpi).max(HOST_LIMITS.maxPpi),
+  }),
 } as const;
 
 /** Schemas of each call's value on success; null means the user cancelled a dialog. */
@@ -156,6 +178,8 @@ export const hostValueSchemas = {
   /** null: there is no recovery copy. */
   loadRecovery: recoveryCopySchema.nullable(),
   clearRecovery: z.boolean(),
+  openSupplied: suppliedFileSchema.nullable(),
+  exportSheet: exportedFileSchema.nullable(),
 } as const;
 
 const hostErrorSchema = z.strictObject({ code: z.string().min(1).max(64), message: z.string().min(1).max(2000) });
@@ -169,6 +193,7 @@ export type ExportedFile = z.infer<typeof exportedFileSchema>;
 export type RecentChart = z.infer<typeof recentChartSchema>;
 export type RecoveryCopy = z.infer<typeof recoveryCopySchema>;
 export type HostError = z.infer<typeof hostErrorSchema>;
+export type SuppliedFileBytes = z.infer<typeof suppliedFileSchema>;
 
 export type HostRequest<M extends HostMethod> = z.infer<(typeof hostRequestSchemas)[M]>;
 export type HostValue<M extends HostMethod> = z.infer<(typeof hostValueSchemas)[M]>;
@@ -189,6 +214,10 @@ export interface HostApi {
   loadRecovery(): Promise<HostResult<RecoveryCopy | null>>;
   /** Drops the recovery copy (after a save, or when the designer discards it); true if there was one. */
   clearRecovery(): Promise<HostResult<boolean>>;
+  /** Asks for a supplied graphic, glyph or font file and returns its bytes; null when cancelled. */
+  openSupplied(request: HostRequest<'openSupplied'>): Promise<HostResult<SuppliedFileBytes | null>>;
+  /** Writes an audit sheet as SVG or PNG (with its resolution recorded). */
+  exportSheet(request: HostRequest<'exportSheet'>): Promise<HostResult<ExportedFile | null>>;
   /** Listens for menu commands; returns the function that stops listening. */
   onMenuCommand(listener: (command: MenuCommand) => void): () => void;
 }

@@ -16,6 +16,7 @@ export {
   hostFailure,
   failureFromError,
   safeFileName,
+  SUPPLIED_PURPOSES,
 } from './hostApi';
 export type {
   HostApi,
@@ -32,4 +33,6 @@ export type {
   SavedChart,
   ExportedFile,
   RecoveryCopy,
+  SuppliedFileBytes,
+  SuppliedPurpose,
 } from './hostApi';

@@ -55,9 +55,14 @@ export function resolveGlyphs(spec: ChartSpec): ResolvedGlyphs {
     let svg: string;
     let name: string;
     try {
+      const own = inline ? undefined : spec.glyphs?.[ref.trim()];
       if (inline) {
         svg = ref.svg;
         name = `inline:${inlineCount + 1}`;
+      } else if (own) {
+        // A glyph of the designer's own, kept in the document by name (document field "glyphs").
+        svg = own.svg;
+        name = ref.trim();
       } else {
         const entry = getGlyph(ref);
         svg = entry.svg;

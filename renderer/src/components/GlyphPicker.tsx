@@ -1,14 +1,17 @@
 // Glyph choice with search over the bundled catalog; each choice shows the glyph itself.
 import { useEffect, useLayoutEffect, useMemo, useRef, useState, type ReactElement, type RefObject } from 'react';
 import { createPortal } from 'react-dom';
-import { findGlyphs, getGlyph, type GlyphEntry } from '../../../shared-core/glyph';
+import { getGlyph, type GlyphEntry } from '../../../shared-core/glyph';
 import type { GlyphRef } from '../../../shared-core/document';
+import { ownGlyphImageUrl } from '../glyphs/ownGlyphImages';
+import { BROWSE_CATEGORIES, browseGlyphs, sharePercent, type BrowseCategory } from '../glyphs/browseGlyphs';
 
 const PREVIEW_INK = '#27332e';
 const urlCache = new Map<string, string>();
 
 /** A data URL of the bundled glyph for an <img>; glyph markup is ours, bundled, and drawn as an image (no script runs). */
 export function glyphImageUrl(name: string): string | null {
+  if (name.startsWith('own:')) return ownGlyphImageUrl(name);
   const cached = urlCache.get(name);
   if (cached) return cached;
   let entry: GlyphEntry;
@@ -61,7 +64,8 @@ export function GlyphPicker({ value, onChoose: choose, onClose: close, onClear: 
       }
     : undefined;
   const [query, setQuery] = useState('');
-  const results = useMemo(() => findGlyphs(query), [query]);
+  const [category, setCategory] = useState<BrowseCategory>('all');
+  const results = useMemo(() => browseGlyphs(query, category), [query, category]);
   const panel = useRef<HTMLDivElement>(null);
   const search = useRef<HTMLInputElement>(null);
   const [place, setPlace] = useState<{ left: number; top: number } | null>(null);
@@ -133,6 +137,13 @@ export function GlyphPicker({ value, onChoose: choose, onClose: close, onClear: 
           aria-label="Search glyphs"
         />
       </div>
+      <div className="glyph-categories" role="radiogroup" aria-label="Glyph category">
+        {BROWSE_CATEGORIES.map((c) => (
+          <button key={c} type="button" role="radio" aria-checked={category === c} className={category === c ? 'glyph-category active' : 'glyph-category'} onClick={() => setCategory(c)}>
+            {c}
+          </button>
+        ))}
+      </div>
       <div className="glyph-grid" role="listbox" aria-label="Glyphs">
         {results.map((g) => (
           <button
@@ -141,17 +152,18 @@ export function GlyphPicker({ value, onChoose: choose, onClose: close, onClear: 
             role="option"
             aria-selected={value === g.name}
             className={value === g.name ? 'glyph-cell selected' : 'glyph-cell'}
-            title={`${g.name} (${g.category}${g.tags.length ? ': ' + g.tags.slice(0, 4).join(', ') : ''})`}
+            title={`${g.name} (${g.category}${g.tags.length ? ': ' + g.tags.slice(0, 4).join(', ') : ''}); its ink fills ${sharePercent(g.boxFraction)} of its box`}
             onClick={() => onChoose(g.name)}
           >
             <GlyphThumb glyph={g.name} size={26} />
-            <span>{g.name}</span>
+            <span>{g.name.startsWith('own:') ? g.name.slice(4) : g.name}</span>
+            <span className="glyph-share" data-testid="glyph-share">{sharePercent(g.boxFraction)}</span>
           </button>
         ))}
-        {results.length === 0 && <p className="empty-note">No glyph matches “{query}”.</p>}
+        {results.length === 0 && <p className="empty-note">{category === 'yours' && !query ? 'No glyphs of your own in this chart yet.' : `No glyph matches “${query}”${category === 'all' ? '' : ` in ${category}`}.`}</p>}
       </div>
       <div className="popover-foot">
-        <span className="muted">{results.length} of the bundled glyphs</span>
+        <span className="muted">{results.length} glyph{results.length === 1 ? '' : 's'} · % = ink share of its box</span>
         {onClear && (
           <button type="button" className="link-button" onClick={onClear}>
             Use the chart’s glyph

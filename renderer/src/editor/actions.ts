@@ -1,7 +1,7 @@
 // Every change the editor can make, as a named action, and the pure perform(document, action)
 // that returns the next document. Nothing else changes a document.
 
-import { PAGE_UNIT_MM, type Arrangement, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
+import { PAGE_UNIT_MM, type OwnGlyph, type Arrangement, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
 import type { EditorDocument, EditorRow } from './editorDocument';
 import { parseTable } from './parseTable';
 
@@ -32,7 +32,11 @@ export type Action =
   | { type: 'set-bleed'; bleedMm: number }
   /** null: no background (a transparent page). */
   | { type: 'set-background'; background: string | null }
-  | { type: 'set-show'; what: 'labels' | 'valueLabels' | 'legend'; on: boolean };
+  | { type: 'set-show'; what: 'labels' | 'valueLabels' | 'legend'; on: boolean }
+  /** A glyph of one's own kept in the document under `name` ("own:…"), and used as the chart's glyph. */
+  | { type: 'add-own-glyph'; name: string; glyph: OwnGlyph }
+  /** Removes an own glyph; rows and the chart fall back to the bundled square where they used it. */
+  | { type: 'remove-own-glyph'; name: string };
 
 export type ActionType = Action['type'];
 
@@ -61,6 +65,8 @@ export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze(
   'set-bleed': 'bleed change',
   'set-background': 'background change',
   'set-show': 'label setting',
+  'add-own-glyph': 'glyph import',
+  'remove-own-glyph': 'glyph removal',
 });
 
 const MAX_ROWS = 10_000;
@@ -170,6 +176,22 @@ export function perform(doc: EditorDocument, action: Action): EditorDocument {
       if ((doc.encoding.unitName ?? '') === action.unitName) return doc;
       const { unitName: _old, ...rest } = doc.encoding;
       return { ...doc, encoding: action.unitName === '' ? rest : { ...rest, unitName: action.unitName } };
+    }
+    case 'add-own-glyph':
+      return { ...doc, glyphs: { ...(doc.glyphs ?? {}), [action.name]: { ...action.glyph } }, encoding: { ...doc.encoding, glyph: action.name } };
+    case 'remove-own-glyph': {
+      if (!doc.glyphs || !(action.name in doc.glyphs)) return doc;
+      const { [action.name]: _gone, ...kept } = doc.glyphs;
+      const fallback = (g: unknown) => g === action.name;
+      const rows = doc.rows.map((r) => {
+        if (!fallback(r.glyph)) return r;
+        const { glyph: _old, ...rest } = r;
+        return rest;
+      });
+      const next: EditorDocument = { ...doc, rows, encoding: fallback(doc.encoding.glyph) ? { ...doc.encoding, glyph: 'square' } : doc.encoding };
+      if (Object.keys(kept).length > 0) next.glyphs = kept;
+      else delete next.glyphs;
+      return next;
     }
     case 'set-glyph':
       return action.glyph === doc.encoding.glyph ? doc : { ...doc, encoding: { ...doc.encoding, glyph: action.glyph } };

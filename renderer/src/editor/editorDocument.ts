@@ -12,6 +12,7 @@ import {
   type FillTo,
   type GlyphRef,
   type LayoutOptions,
+  type OwnGlyph,
   type PageUnit,
   type Rounding,
 } from '../../../shared-core/document';
@@ -54,6 +55,8 @@ export interface EditorDocument {
   useReferences: boolean;
   /** Next row id number; ids are never reused within a document's history. */
   nextRowNumber: number;
+  /** Glyphs of one's own kept in the document, by "own:…" name. */
+  glyphs?: Record<string, OwnGlyph>;
 }
 
 export type RowField = 'label' | 'value' | 'glyph';
@@ -134,7 +137,7 @@ export function fromChartDocument(input: unknown): EditorDocument {
   };
   if (enc.unit !== undefined) encoding.unit = enc.unit;
   if (enc.unitName !== undefined) encoding.unitName = enc.unitName;
-  return {
+  const out: EditorDocument = {
     title: spec.title ?? '',
     source: spec.source ?? '',
     rows,
@@ -145,6 +148,8 @@ export function fromChartDocument(input: unknown): EditorDocument {
     useReferences: spec.useReferences,
     nextRowNumber: rows.length + 1,
   };
+  if (doc.glyphs) out.glyphs = doc.glyphs;
+  return out;
 }
 
 /** How many near names an unknown glyph's message offers. */
@@ -161,8 +166,9 @@ export function nearGlyphNames(glyph: GlyphRef | undefined): string[] {
   }
 }
 
-function glyphProblem(glyph: GlyphRef): string | null {
+function glyphProblem(glyph: GlyphRef, own?: Record<string, OwnGlyph>): string | null {
   if (typeof glyph !== 'string') return null;
+  if (own && glyph in own) return null;
   try {
     getGlyph(glyph);
     return null;
@@ -194,7 +200,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
     }
 
     if (row.glyph !== undefined) {
-      const problem = glyphProblem(row.glyph);
+      const problem = glyphProblem(row.glyph, ed.glyphs);
       if (problem) rowProblems.push({ rowId: row.id, field: 'glyph', message: problem });
     }
     const out: ChartDocument['data'][number] = { label, value: read.ok ? read.value : 0 };
@@ -203,7 +209,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
     data.push(out);
   });
   if (ed.rows.length === 0) otherProblems.push('The table is empty: a chart needs at least one row.');
-  const chartGlyph = glyphProblem(ed.encoding.glyph);
+  const chartGlyph = glyphProblem(ed.encoding.glyph, ed.glyphs);
   if (chartGlyph) otherProblems.push(chartGlyph);
   if (rowProblems.length > 0 || otherProblems.length > 0) return { document: null, rowProblems, otherProblems, chartGlyphProblem: chartGlyph };
 
@@ -239,6 +245,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
   };
   if (ed.title.trim() !== '') document.title = ed.title;
   if (ed.source.trim() !== '') document.source = ed.source;
+  if (ed.glyphs && Object.keys(ed.glyphs).length > 0) document.glyphs = ed.glyphs;
   return { document, rowProblems, otherProblems, chartGlyphProblem: null };
 }
 

@@ -16,6 +16,8 @@ import {
   type RecentChart,
   type RecoveryCopy,
   type SavedChart,
+  type SuppliedFileBytes,
+  type SuppliedPurpose,
 } from '../../../shared-core/host';
 import { TallyError } from '../../../shared-core/errors';
 import { withPhysChunk } from '../../../shared-core/png';
@@ -117,6 +119,20 @@ function chooseFile(accept: string): Promise<File | null> {
     document.body.appendChild(input);
     input.click();
   });
+}
+
+/** What the file chooser offers, by what a supplied file is opened for. */
+const SUPPLIED_ACCEPT: Record<SuppliedPurpose, string> = {
+  audit: '.svg,.png,.jpg,.jpeg,image/svg+xml,image/png,image/jpeg',
+  glyph: '.svg,image/svg+xml',
+  font: '.ttf,.otf,.woff,font/ttf,font/otf,font/woff',
+};
+
+/** Bytes as base64, in slices so a large file does not overflow the argument list. */
+export function bytesToBase64(bytes: Uint8Array): string {
+  let s = '';
+  for (let i = 0; i < bytes.length; i += 0x8000) s += String.fromCharCode(...bytes.subarray(i, i + 0x8000));
+  return btoa(s);
 }
 
 /** The page size the root <svg> declares, in mm (CSS absolute units). */
@@ -242,6 +258,26 @@ export function createBrowserHost(options: BrowserHostOptions = {}): HostApi {
       attempt(async (): Promise<ExportedFile | null> => {
         const { svg, suggestedName, ppi } = parseHostRequest('exportPng', request);
         refuseOutsideReferences(svg);
+        const { png } = await rasterizeInBrowser(svg, ppi);
+        return { name: suggestedName, bytes: download(png, suggestedName, 'image/png') };
+      }),
+
+    openSupplied: (request) =>
+      attempt(async (): Promise<SuppliedFileBytes | null> => {
+        const { purpose } = parseHostRequest('openSupplied', request);
+        const file = await chooseFile(SUPPLIED_ACCEPT[purpose]);
+        if (!file) return null;
+        if (file.size > HOST_LIMITS.maxSuppliedBytes) {
+          throw new TallyError('io-error', `"${file.name}" is ${(file.size / 1e6).toFixed(1)} MB; the limit for a supplied file is ${(HOST_LIMITS.maxSuppliedBytes / 1e6).toFixed(1)} MB.`);
+        }
+        const name = file.name.slice(0, HOST_LIMITS.maxNameChars).replace(/^\.+/, '') || 'supplied';
+        return { name, base64: bytesToBase64(new Uint8Array(await file.arrayBuffer())) };
+      }),
+
+    exportSheet: (request) =>
+      attempt(async (): Promise<ExportedFile | null> => {
+        const { svg, suggestedName, format, ppi } = parseHostRequest('exportSheet', request);
+        if (format === 'svg') return { name: suggestedName, bytes: download(svg, suggestedName, 'image/svg+xml') };
         const { png } = await rasterizeInBrowser(svg, ppi);
         return { name: suggestedName, bytes: download(png, suggestedName, 'image/png') };
       }),

@@ -5,7 +5,7 @@ import { createBrowserHost } from './browserHost';
 function looksLikeHost(value: unknown): value is HostApi {
   if (typeof value !== 'object' || value === null) return false;
   const v = value as Record<string, unknown>;
-  return ['getCapabilities', 'openChart', 'saveChart', 'exportSvg', 'exportPng', 'listRecent', 'onMenuCommand'].every((k) => typeof v[k] === 'function');
+  return ['getCapabilities', 'openChart', 'saveChart', 'exportSvg', 'exportPng', 'listRecent', 'openSupplied', 'exportSheet', 'onMenuCommand'].every((k) => typeof v[k] === 'function');
 }
 
 export function pickHost(): HostApi {
