@@ -2,7 +2,7 @@
 // under bench/results/. Asserts nothing (speed goals live here, not in tests). `--smoke` runs every case at
 // tiny sizes (the test suite does, so this file cannot rot); `--out DIR` writes elsewhere.
 import { spawnSync } from 'node:child_process';
-import { mkdirSync, writeFileSync } from 'node:fs';
+import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
@@ -36,7 +36,8 @@ export interface BenchRow {
 }
 
 export interface BenchResult {
-  mode: 'full' | 'smoke';
+  /** 'partial' when only some cases ran (--only). */
+  mode: 'full' | 'smoke' | 'partial';
   date: string;
   node: string;
   cores: number;
@@ -50,6 +51,8 @@ export interface BenchOptions {
   runs?: number;
   outDir?: string | null;
   log?: (line: string) => void;
+  /** Run only these cases: render, ink, png, app, audit (default all). */
+  only?: readonly string[];
 }
 
 const SCRIPT = fileURLToPath(import.meta.url);
@@ -61,8 +64,8 @@ function median(values: number[]): number {
   return s.length % 2 ? s[mid] : (s[mid - 1] + s[mid]) / 2;
 }
 
-async function timed(runs: number, fn: () => unknown | Promise<unknown>): Promise<BenchFigure> {
-  await fn(); // warm-up: compiled code and filled caches of the libraries, as in a running app
+async function timed(runs: number, fn: () => unknown | Promise<unknown>, warmUp = true): Promise<BenchFigure> {
+  if (warmUp) await fn(); // warm-up: compiled code and filled caches of the libraries, as in a running app
   const times: number[] = [];
   for (let i = 0; i < runs; i++) {
     const t0 = performance.now();
@@ -151,14 +154,14 @@ function rasterInk(svg: string, sizePx: number, viewBox: { width: number; height
 }
 
 /** PNG export in a child process, so its peak memory (max resident set size) is its own. */
-function pngChild(glyphs: number, ppi: number, page: { width: number; height: number }): { wallMs: number; peakMb: number; pass: boolean; error?: string } {
+function pngChild(glyphs: number, ppi: number, page: { width: number; height: number }): { wallMs: number; cpuMs: number; peakMb: number; pass: boolean; error?: string } {
   const args = ['--import', 'tsx', SCRIPT, '--png-child', String(glyphs), String(ppi), String(page.width), String(page.height)];
   const run = spawnSync(process.execPath, args, { cwd: ROOT, encoding: 'utf8', maxBuffer: 16 * 1024 * 1024 });
   const line = (run.stdout ?? '').trim().split('\n').pop() ?? '';
   try {
-    return JSON.parse(line) as { wallMs: number; peakMb: number; pass: boolean };
+    return JSON.parse(line) as { wallMs: number; cpuMs: number; peakMb: number; pass: boolean };
   } catch {
-    return { wallMs: NaN, peakMb: NaN, pass: false, error: (run.stderr || run.stdout || 'no output').trim().split('\n').slice(-3).join(' ') };
+    return { wallMs: NaN, cpuMs: NaN, peakMb: NaN, pass: false, error: (run.stderr || run.stdout || 'no output').trim().split('\n').slice(-3).join(' ') };
   }
 }
 
@@ -171,8 +174,25 @@ async function pngChildMain(argv: string[]): Promise<void> {
   const rendered = withGlyphBudget(1e6, () => renderChart(repeatChartDoc(glyphs, { width, height })));
   const built = exportFromRender(rendered, 'png', { ppi });
   const wallMs = performance.now() - t0;
-  const peakMb = process.resourceUsage().maxRSS / 1024;
-  console.log(JSON.stringify({ wallMs, peakMb, pass: built.bytes.length > 0 }));
+  const usage = process.resourceUsage();
+  // CPU time too: on a shared machine the wall time is mostly waiting for a core.
+  const cpuMs = (usage.userCPUTime + usage.systemCPUTime) / 1000;
+  console.log(JSON.stringify({ wallMs, cpuMs, peakMb: peakResidentMb(usage.maxRSS), pass: built.bytes.length > 0 }));
+}
+
+/**
+ * Peak resident memory of this process in MB. On Linux the max RSS that getrusage reports survives exec, so a
+ * child forked from a large parent inherits the parent's peak; VmHWM in /proc/self/status belongs to this
+ * program's own memory. Elsewhere, max RSS.
+ */
+function peakResidentMb(maxRssKb: number): number {
+  try {
+    const hwm = /VmHWM:\s+(\d+) kB/.exec(readFileSync('/proc/self/status', 'utf8'));
+    if (hwm) return Number(hwm[1]) / 1024;
+  } catch {
+    // not Linux
+  }
+  return maxRssKb / 1024;
 }
 
 /** A supplied SVG of `count` marks (bars of invented values), as a client's mock-up would arrive. */
@@ -209,17 +229,20 @@ export async function runBench(opts: BenchOptions = {}): Promise<BenchResult> {
   const log = opts.log ?? ((line: string) => console.log(line));
   const runs = opts.runs ?? (smoke ? 2 : 5);
   const rows: BenchRow[] = [];
+  const want = (name: string) => !opts.only || opts.only.includes(name);
   const add = (row: BenchRow) => {
     rows.push(row);
     log(`${row.case.padEnd(34)} ${row.figure.padEnd(44)} ${fmt(row.value).padStart(10)} ${row.unit}${row.note ? `  (${row.note})` : ''}`);
   };
 
   // 1 and 2: full render of repeat charts, per stage, beside Vega 6 rendering as many symbol marks.
-  const sizes = smoke ? [50, 200] : [1_000, 10_000, 100_000];
+  const sizes = !want('render') ? [] : smoke ? [50, 200] : [1_000, 10_000, 100_000];
   const totals = new Map<number, number>();
   for (const n of sizes) {
     const doc = repeatChartDoc(n);
-    const stageRuns = n >= 100_000 ? Math.min(runs, 2) : runs;
+    // The largest chart takes minutes here: one timed run, warmed up by the smaller charts before it.
+    const largest = n >= 100_000;
+    const stageRuns = largest ? 1 : n >= 10_000 ? Math.min(runs, 3) : runs;
     const perStage: Record<Stage, number[]> = { parse: [], layout: [], write: [], verify: [], embed: [] };
     let chars = 0;
     let pass = true;
@@ -230,10 +253,10 @@ export async function runBench(opts: BenchOptions = {}): Promise<BenchResult> {
       chars = st.chars;
       pass &&= st.pass;
       reason ||= st.reason;
-    });
+    }, !largest);
     // The warm-up run also pushed its stages: drop it.
-    for (const k of STAGES) perStage[k] = perStage[k].slice(1);
-    const theirs = await timed(stageRuns, () => vegaToSvg(n));
+    if (!largest) for (const k of STAGES) perStage[k] = perStage[k].slice(1);
+    const theirs = await timed(stageRuns, () => vegaToSvg(n), !largest);
     totals.set(n, whole.medianMs);
     add({ case: `repeat ${n} glyphs`, figure: 'ours: parse+layout+SVG+verify+embed', value: whole.medianMs, unit: 'ms', min: whole.minMs, max: whole.maxMs, note: `${(chars / 1e6).toFixed(2)} MB SVG, ${pass ? 'verified' : `refused: ${reason.slice(0, 100)}`}` });
     for (const k of STAGES) {
@@ -244,15 +267,15 @@ export async function runBench(opts: BenchOptions = {}): Promise<BenchResult> {
   }
   const big = sizes[sizes.length - 1];
   const mid = sizes[sizes.length - 2];
-  add({ case: 'growth', figure: `time ${big} / time ${mid} glyphs`, value: (totals.get(big) as number) / (totals.get(mid) as number), unit: 'x', note: `${big / mid}x the glyphs; goal at most ${(big / mid) * 1.1}` });
+  if (sizes.length) add({ case: 'growth', figure: `time ${big} / time ${mid} glyphs`, value: (totals.get(big) as number) / (totals.get(mid) as number), unit: 'x', note: `${big / mid}x the glyphs; goal at most ${(big / mid) * 1.1}` });
 
   // 3: exact ink area of bundled glyphs against a 2048 x 2048 raster count.
-  const glyphs = smoke ? listGlyphs().slice(0, 4) : listGlyphs();
+  const glyphs = !want('ink') ? [] : smoke ? listGlyphs().slice(0, 4) : listGlyphs();
   let exactMs = 0;
   let rasterMs = 0;
   let worst = { name: '', rel: 0 };
   for (const g of glyphs) {
-    const ours = await timed(smoke ? 1 : 3, () => measureGlyph(g.svg));
+    const ours = await timed(smoke ? 1 : 2, () => measureGlyph(g.svg));
     const ink = measureGlyph(g.svg);
     const vb = ink.viewBox ?? { x: 0, y: 0, width: 1, height: 1 };
     let raster = 0;
@@ -262,44 +285,48 @@ export async function runBench(opts: BenchOptions = {}): Promise<BenchResult> {
     const rel = Math.abs(raster / ink.areaUnits2 - 1);
     if (rel > worst.rel) worst = { name: g.name, rel };
   }
-  add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'exact (polygons), per glyph', value: exactMs / glyphs.length, unit: 'ms' });
-  add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'resvg 2048 px alpha count, per glyph', value: rasterMs / glyphs.length, unit: 'ms' });
-  add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'speed ratio raster / exact', value: rasterMs / exactMs, unit: 'x' });
-  add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'largest disagreement', value: worst.rel, unit: 'relative', note: worst.name });
+  if (glyphs.length) add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'exact (polygons), per glyph', value: exactMs / glyphs.length, unit: 'ms' });
+  if (glyphs.length) add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'resvg 2048 px alpha count, per glyph', value: rasterMs / glyphs.length, unit: 'ms' });
+  if (glyphs.length) add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'speed ratio raster / exact', value: rasterMs / exactMs, unit: 'x' });
+  if (glyphs.length) add({ case: `ink area, ${glyphs.length} glyphs`, figure: 'largest disagreement', value: worst.rel, unit: 'relative', note: worst.name });
 
   // 4: PNG export, A3 at 300 ppi with 2,000 glyphs (smoke: A6 at 72 ppi, 40 glyphs), in its own process.
   const png = smoke ? { glyphs: 40, ppi: 72, page: { width: 148, height: 105 } } : { glyphs: 2_000, ppi: 300, page: { width: 420, height: 297 } };
-  const pngRuns: { wallMs: number; peakMb: number }[] = [];
+  const pngRuns: { wallMs: number; cpuMs: number; peakMb: number }[] = [];
   let pngError: string | undefined;
-  for (let i = 0; i < (smoke ? 1 : 3); i++) {
+  for (let i = 0; i < (!want('png') ? 0 : smoke ? 1 : 2); i++) {
     const r = pngChild(png.glyphs, png.ppi, png.page);
     if (r.error) pngError = r.error;
     else pngRuns.push(r);
   }
   const pngCase = `PNG ${png.page.width}x${png.page.height} mm ${png.ppi} ppi, ${png.glyphs} glyphs`;
-  if (pngRuns.length) {
+  if (!want('png')) {
+    // skipped
+  } else if (pngRuns.length) {
     const walls = pngRuns.map((r) => r.wallMs);
     const peaks = pngRuns.map((r) => r.peakMb);
     add({ case: pngCase, figure: 'wall time (render + verify + pixel check + PNG)', value: median(walls), unit: 'ms', min: Math.min(...walls), max: Math.max(...walls), note: 'goal under 2000' });
-    add({ case: pngCase, figure: 'peak memory (max RSS of the process)', value: median(peaks), unit: 'MB', min: Math.min(...peaks), max: Math.max(...peaks), note: 'goal under 500' });
+    const cpus = pngRuns.map((r) => r.cpuMs);
+    add({ case: pngCase, figure: 'CPU time of the whole process (user + system)', value: median(cpus), unit: 'ms', min: Math.min(...cpus), max: Math.max(...cpus), note: 'includes starting Node' });
+    add({ case: pngCase, figure: 'peak memory (resident high-water mark of the process)', value: median(peaks), unit: 'MB', min: Math.min(...peaks), max: Math.max(...peaks), note: 'goal under 500' });
   } else add({ case: pngCase, figure: 'wall time', value: null, unit: 'ms', note: `failed: ${pngError ?? 'unknown'}` });
 
   // 5: the app in Chromium, edit to updated preview: measured by the app's own benchmark, not here.
-  add({ case: 'app edit → preview, 1,000 glyphs', figure: 'median and p95 in Chromium', value: 'slot', unit: 'ms', note: 'not measured here: reserved for the app benchmark' });
+  if (want('app')) add({ case: 'app edit → preview, 1,000 glyphs', figure: 'median and p95 in Chromium', value: 'slot', unit: 'ms', note: 'not measured here: reserved for the app benchmark' });
 
   // 6: audit of a supplied SVG with 5,000 marks.
-  const auditCount = smoke ? 50 : 5_000;
+  const auditCount = !want('audit') ? 0 : smoke ? 50 : 5_000;
   const fixture = auditFixture(auditCount);
   const markIds = fixture.values.map((_, i) => `m${i}`);
-  try {
-    const audit = await timed(smoke ? 1 : 3, () => auditSvg(fixture.svg, { values: fixture.values, markIds }));
+  if (auditCount) try {
+    const audit = await timed(smoke ? 1 : 2, () => auditSvg(fixture.svg, { values: fixture.values, markIds }));
     add({ case: `audit ${auditCount} marks`, figure: 'auditSvg of a supplied SVG', value: audit.medianMs, unit: 'ms', min: audit.minMs, max: audit.maxMs });
   } catch (e) {
     add({ case: `audit ${auditCount} marks`, figure: 'auditSvg of a supplied SVG', value: null, unit: 'ms', note: `refused: ${e instanceof Error ? e.message.slice(0, 120) : String(e)}` });
   }
 
   const result: BenchResult = {
-    mode: smoke ? 'smoke' : 'full',
+    mode: smoke ? 'smoke' : opts.only ? 'partial' : 'full',
     date: new Date().toISOString(),
     node: process.version,
     cores: os.cpus().length,
@@ -315,7 +342,7 @@ export function writeResults(result: BenchResult, outDir: string): { json: strin
   mkdirSync(outDir, { recursive: true });
   const stamp = result.date.slice(0, 19).replace(/[:T]/g, '-');
   const md = [
-    `# Benchmark ${result.mode === 'smoke' ? '(smoke run)' : ''}`.trim(),
+    `# Benchmark ${result.mode === 'full' ? '' : `(${result.mode} run)`}`.trim(),
     '',
     `${result.date} · Node ${result.node} · ${result.cores} cores (${result.cpu}) · medians after one warm-up, with min and max.`,
     '',
@@ -338,10 +365,12 @@ if (invoked) {
   else {
     const outAt = argv.indexOf('--out');
     const runsAt = argv.indexOf('--runs');
+    const onlyAt = argv.indexOf('--only');
     const result = await runBench({
       smoke: argv.includes('--smoke'),
       ...(runsAt >= 0 ? { runs: Number(argv[runsAt + 1]) } : {}),
       ...(outAt >= 0 ? { outDir: argv[outAt + 1] } : {}),
+      ...(onlyAt >= 0 ? { only: argv[onlyAt + 1].split(',') } : {}),
       log: (line) => console.log(line),
     });
     console.log('\n' + formatTable(result.rows));
