@@ -167,18 +167,19 @@ export function AuditWorkspace({ host, onNotice, hidden = false }: { host: HostA
     }
   };
 
-  const sheetSvg = useMemo(() => {
+  const sheet = useMemo((): { svg: string; notes: string[] } | null => {
     if (!loaded || !report || !reading || !answer) return null;
     try {
-      if (answer.kind === 'corrected') {
-        const c = answer.correction;
-        return buildSheet({ supplied: loaded.sheetSource, corrected: c.svg, before: c.before, after: c.after, reading: c.reading }).svg;
-      }
-      return buildRedrawSheet({ supplied: loaded.sheetSource, redrawn: answer.svg, before: report, reading, redrawnLieFactor: answer.lieFactor, names }).svg;
+      const built =
+        answer.kind === 'corrected'
+          ? buildSheet({ supplied: loaded.sheetSource, corrected: answer.correction.svg, before: answer.correction.before, after: answer.correction.after, reading: answer.correction.reading })
+          : buildRedrawSheet({ supplied: loaded.sheetSource, redrawn: answer.svg, before: report, reading, redrawnLieFactor: answer.lieFactor, names });
+      return { svg: built.svg, notes: built.warnings.map((w) => w.message) };
     } catch (e) {
-      return `error:${messageOf(e)}`;
+      return { svg: `error:${messageOf(e)}`, notes: [] };
     }
   }, [loaded, report, reading, answer, names]);
+  const sheetSvg = sheet?.svg ?? null;
 
   const exportSheet = async (format: 'svg' | 'png') => {
     if (!loaded || !sheetSvg) return;
@@ -413,6 +414,11 @@ export function AuditWorkspace({ host, onNotice, hidden = false }: { host: HostA
                   <Icon name="export" /> Sheet PNG
                 </button>
               </div>
+              {sheet?.notes.map((note, i) => (
+                <p key={i} className="field-hint audit-warning" data-testid="sheet-note">
+                  {note}
+                </p>
+              ))}
               <details className="audit-data">
                 <summary>Measured marks</summary>
                 <table className="data-table">

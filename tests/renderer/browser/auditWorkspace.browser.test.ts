@@ -138,6 +138,8 @@ describe.skipIf(!haveChromium)(`the audit workspace in Chromium (skipped when ${
     await page.getByTestId('audit-correct').click();
     await page.getByTestId('audit-answer').waitFor();
     expect(await page.getByTestId('audit-answer-caption').textContent()).toBe('Corrected for the length reading · lie factor 1.00');
+    // The drawing's own labels travel as live text: the sheet says so rather than dropping them silently.
+    expect(await page.getByTestId('sheet-note').allTextContents()).toContain("The supplied drawing's own text is copied as text, not outlines: it needs its fonts, and the sheet's PNG leaves it out.");
     await screenshot(page, 'audit-02-svg-corrected');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('audit-sheet-svg').click()]);

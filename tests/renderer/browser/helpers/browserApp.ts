@@ -1,6 +1,8 @@
 // The app's production build served by vite preview and driven in Debian's Chromium through
 // playwright-core (no browser download), for browser test files that need their own suite.
-// Same set-up as app.browser.test.ts: port from TALLYGLYPH_TEST_PORT, headless, no GPU.
+// Same set-up as app.browser.test.ts (headless, no GPU), except the port: each file using this helper
+// asks the system for a free one, so browser test files running side by side (vitest runs two at
+// once) and checkouts on one machine never collide on TALLYGLYPH_TEST_PORT.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
@@ -12,13 +14,13 @@ import { preview, type PreviewServer } from 'vite';
 export const REPO = fileURLToPath(new URL('../../../../', import.meta.url));
 export const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
 export const haveChromium = fs.existsSync(CHROMIUM);
-const PORT = Number(process.env.TALLYGLYPH_TEST_PORT ?? 5318);
-export const BASE = `http://127.0.0.1:${PORT}/`;
 export const SHOTS = path.join(REPO, 'test-results', 'browser');
 const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 export interface BrowserApp {
   context: BrowserContext;
+  /** The served app's address, on the port the system gave. */
+  base: string;
   close(): Promise<void>;
 }
 
@@ -40,14 +42,18 @@ export async function startBrowserApp(): Promise<BrowserApp> {
     server = await preview({
       configFile: path.join(REPO, 'renderer', 'vite.config.ts'),
       build: { outDir },
-      preview: { host: '127.0.0.1', port: PORT, strictPort: true },
+      // Port 0: the system picks a free port; resolvedUrls says which.
+      preview: { host: '127.0.0.1', port: 0, strictPort: true },
       logLevel: 'warn',
     });
     browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
     const context = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
     const opened = { server, browser };
+    const base = server.resolvedUrls?.local[0];
+    if (!base) throw new Error('vite preview did not say where it serves the app.');
     return {
       context,
+      base,
       async close() {
         await opened.browser.close();
         await opened.server.close();
@@ -69,7 +75,7 @@ export async function openApp(app: BrowserApp, errors: string[]): Promise<Page> 
   page.on('console', (m) => {
     if (m.type() === 'error') errors.push(m.text());
   });
-  await page.goto(BASE);
+  await page.goto(app.base);
   return page;
 }
 
