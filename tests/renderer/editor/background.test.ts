@@ -12,10 +12,10 @@ describe('set-background', () => {
     expect(doc.layout.background).toBeUndefined();
     const coloured = perform(doc, { type: 'set-background', background: '#FBF8F1' });
     expect(coloured.layout.background).toBe('#fbf8f1');
-    expect(toChartDocument(coloured).document.layout?.background).toBe('#fbf8f1');
+    expect(toChartDocument(coloured).document?.layout?.background).toBe('#fbf8f1');
     const cleared = perform(coloured, { type: 'set-background', background: null });
     expect(cleared.layout.background).toBeUndefined();
-    expect(toChartDocument(cleared).document.layout).not.toHaveProperty('background');
+    expect(toChartDocument(cleared).document?.layout).not.toHaveProperty('background');
     expect(ACTION_NAMES['set-background']).toBe('background change');
   });
 
