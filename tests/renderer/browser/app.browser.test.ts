@@ -18,10 +18,8 @@ import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
 const REPO = fileURLToPath(new URL('../../../', import.meta.url));
 const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
 const haveChromium = fs.existsSync(CHROMIUM);
-/** Not the dev server's port, so a running `npm run dev:web` does not collide with the tests;
- * TALLYGLYPH_TEST_PORT lets two checkouts run their browser tests side by side. */
-const PORT = Number(process.env.TALLYGLYPH_TEST_PORT ?? 5318);
-const BASE = `http://127.0.0.1:${PORT}/`;
+/** Where the app is served: a free port the system gives, so browser test files running side by side never collide. */
+let BASE = '';
 const SHOTS = path.join(REPO, 'test-results', 'browser');
 const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
@@ -79,9 +77,11 @@ describe.skipIf(!haveChromium)(`the app in Chromium (skipped when ${CHROMIUM} is
     server = await preview({
       configFile: path.join(REPO, 'renderer', 'vite.config.ts'),
       build: { outDir },
-      preview: { host: '127.0.0.1', port: PORT, strictPort: true },
+      preview: { host: '127.0.0.1', port: 0, strictPort: true },
       logLevel: 'warn',
     });
+    BASE = server.resolvedUrls?.local[0] ?? '';
+    if (!BASE) throw new Error('vite preview did not say where it serves the app.');
     browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
     // One context for the suite: pages share its HTTP and compiled-code caches, so each test's fresh
     // page loads faster; every test still starts from a newly loaded app.

@@ -11,7 +11,7 @@ import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { parseChart } from '../../../shared-core/document';
 import { verifySvg } from '../../../shared-core/integrity';
 import { hasPoppler, pdffontsNames, pdfinfoBoxes } from '../../helpers/poppler';
-import { BASE, haveChromium, CHROMIUM, imageBytes, shot, startApp, waitForVerdict, type AppServer } from './helpers/appServer';
+import { haveChromium, CHROMIUM, imageBytes, shot, startApp, waitForVerdict, type AppServer } from './helpers/appServer';
 import { installDesktopHost, type DesktopHost } from './helpers/desktopHost';
 
 const BIKES = DEMO_CHARTS[0].document;
@@ -36,7 +36,7 @@ async function openApp(context: BrowserContext, verdict: 'pass' | 'waiting' = 'p
   page.on('console', (m) => {
     if (m.type() === 'error') pageErrors.push(m.text());
   });
-  await page.goto(BASE);
+  await page.goto(app!.base);
   await waitForVerdict(page, verdict);
   return page;
 }
@@ -123,7 +123,7 @@ describe.skipIf(!haveChromium)(`documents in Chromium (skipped when ${CHROMIUM} 
 
   it('copies the checked chart to the clipboard as SVG, the same bytes as the preview', async () => {
     const { context } = await newContext();
-    await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: BASE });
+    await context.grantPermissions(['clipboard-read', 'clipboard-write'], { origin: app!.base });
     const page = await openApp(context);
     await page.getByTestId('copy-svg').click();
     await expect.poll(() => page.getByTestId('notice').textContent()).toMatch(/^Copied the checked chart/);

@@ -4,7 +4,7 @@ import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from
 import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { verifySvg } from '../../../shared-core/integrity';
 import { parseXml, walkElements } from '../../../shared-core/svg';
-import { BASE, CHROMIUM, haveChromium, imageBytes, shot, startApp, waitForVerdict, type AppServer } from './helpers/appServer';
+import { CHROMIUM, haveChromium, imageBytes, shot, startApp, waitForVerdict, type AppServer } from './helpers/appServer';
 
 const BIKES = DEMO_CHARTS[0].document;
 /** CSS Values 4: 1 in = 96 px = 25.4 mm. */
@@ -40,7 +40,7 @@ describe.skipIf(!haveChromium)(`zoom and pan in Chromium (skipped when ${CHROMIU
     page = await context.newPage();
     pageErrors = [];
     page.on('pageerror', (e) => pageErrors.push(e.message));
-    await page.goto(BASE);
+    await page.goto(app!.base);
     await waitForVerdict(page, 'pass');
   });
 

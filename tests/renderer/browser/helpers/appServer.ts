@@ -1,4 +1,4 @@
-// The app built for production and served by vite preview on this checkout's test port, and Debian's
+// The app built for production and served by vite preview on a free port, and Debian's
 // Chromium driven by playwright-core (no browser download): the setup every browser test file shares.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
@@ -11,15 +11,14 @@ import { preview, type PreviewServer } from 'vite';
 export const REPO = fileURLToPath(new URL('../../../../', import.meta.url));
 export const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
 export const haveChromium = fs.existsSync(CHROMIUM);
-/** TALLYGLYPH_TEST_PORT lets two checkouts run their browser tests side by side. */
-export const PORT = Number(process.env.TALLYGLYPH_TEST_PORT ?? 5318);
-export const BASE = `http://127.0.0.1:${PORT}/`;
 export const SHOTS = path.join(REPO, 'test-results', 'browser');
 export const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 export interface AppServer {
   server: PreviewServer;
   browser: Browser;
+  /** The served app's address, on the free port the system gave (vitest runs two browser files at once). */
+  base: string;
   close(): Promise<void>;
 }
 
@@ -37,13 +36,16 @@ export async function startApp(): Promise<AppServer> {
   const server = await preview({
     configFile: path.join(REPO, 'renderer', 'vite.config.ts'),
     build: { outDir },
-    preview: { host: '127.0.0.1', port: PORT, strictPort: true },
+    preview: { host: '127.0.0.1', port: 0, strictPort: true },
     logLevel: 'warn',
   });
+  const base = server.resolvedUrls?.local[0];
+  if (!base) throw new Error('vite preview did not say where it serves the app.');
   const browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
   return {
     server,
     browser,
+    base,
     async close() {
       await browser.close();
       await server.close();

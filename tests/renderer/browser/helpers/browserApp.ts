@@ -2,7 +2,7 @@
 // playwright-core (no browser download), for browser test files that need their own suite.
 // Same set-up as app.browser.test.ts (headless, no GPU), except the port: each file using this helper
 // asks the system for a free one, so browser test files running side by side (vitest runs two at
-// once) and checkouts on one machine never collide on TALLYGLYPH_TEST_PORT.
+// once) and checkouts on one machine never collide.
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import os from 'node:os';
