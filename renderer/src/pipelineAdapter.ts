@@ -24,6 +24,7 @@ function honestyOf(report: VerifyReport): HonestyView {
       lieFactor: pair?.lieFactor ?? null,
       basis: pair?.basis ?? null,
       problem: pair?.problem ?? null,
+      drawn: m.drawn,
       isReference: referenceLabel !== null && m.label === referenceLabel,
       isWorst: worst !== null && m.label === worst.label,
     };

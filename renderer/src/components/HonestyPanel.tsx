@@ -7,6 +7,14 @@ import { formatDrawn, formatFactor, formatGraphic, formatValue, inkPixels, meter
 import { Icon } from './Icon';
 import { pickableRow, RowPickContext } from '../preview/rowPick';
 
+/** What a row's cell says when its pair has no usable lie factor; "not drawn" is kept for rows without ink. */
+const PAIR_PROBLEM_WORDS: Readonly<Record<string, string>> = {
+  'reference-not-drawn': 'no reference drawn',
+  'not-drawn': 'not drawn',
+  'wrong-direction': 'drawn the wrong way',
+  'no-difference': 'no difference drawn',
+};
+
 const DRAWN_HEADINGS = { glyphs: 'Glyphs', mm: 'Height (mm)', mm2: 'Ink (mm²)', share: 'Filled' } as const;
 
 /** A remedy the designer can apply with one click; the app checked that it is possible. */
@@ -218,7 +226,7 @@ function CheckedDetails({ honesty, current, ppi, fixes }: { honesty: HonestyView
                   <td className="num">{formatValue(r.value)}</td>
                   <td className="num" title={formatGraphic(r.graphic, r.graphicUnit)}>{formatDrawn(r.graphic, r.graphicUnit)}</td>
                   <td className="num factor" data-testid={testId('row-factor', current)} title={rowTitle(r, referenceRow)}>
-                    {r.isReference ? <span className="ref-tag">reference</span> : r.problem ? <span className="bad-text">not drawn</span> : formatFactor(r.lieFactor, limits)}
+                    {r.isReference ? <span className="ref-tag">{r.drawn ? 'reference' : 'reference, not drawn'}</span> : !r.drawn ? <span className="bad-text">not drawn</span> : r.problem ? <span className="bad-text">{PAIR_PROBLEM_WORDS[r.problem] ?? 'no lie factor'}</span> : formatFactor(r.lieFactor, limits)}
                     {r.basis === 'ratio' && <span className="basis-tag" title="The values differ by less than 2%, so the ratio form is used">ratio</span>}
                   </td>
                   <td className="meter-cell">{!r.isReference && <Meter value={r.lieFactor} limits={limits} />}</td>

@@ -10,6 +10,8 @@ export interface HonestyRow {
   lieFactor: number | null;
   basis: 'effect' | 'ratio' | null;
   problem: string | null;
+  /** False only when the row has no ink at all: "not drawn" is said of this row and no other. */
+  drawn: boolean;
   isReference: boolean;
   isWorst: boolean;
 }
