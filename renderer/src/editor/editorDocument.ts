@@ -17,6 +17,7 @@ import {
   type Rounding,
 } from '../../../shared-core/document';
 import { closeGlyphNames, getGlyph } from '../../../shared-core/glyph';
+import { chartExtrasOf } from '../../../shared-core/standardise';
 
 export interface EditorRow {
   /** Stable within a document, for React keys and actions; never written to the file. */
@@ -57,6 +58,11 @@ export interface EditorDocument {
   nextRowNumber: number;
   /** Glyphs of one's own kept in the document, by "own:…" name. */
   glyphs?: Record<string, OwnGlyph>;
+  /**
+   * Parts of the document the editor shows but does not edit (standardisation steps, dismissed findings
+   * with their reasons, the all-zero permission): carried through unchanged so saving from the app loses nothing.
+   */
+  carried?: Pick<ChartDocument, 'standardise' | 'dismissed' | 'allowAllZero'>;
 }
 
 export type RowField = 'label' | 'value' | 'glyph';
@@ -148,6 +154,9 @@ export function fromChartDocument(input: unknown): EditorDocument {
     useReferences: spec.useReferences,
     nextRowNumber: rows.length + 1,
   };
+  const carried: NonNullable<EditorDocument['carried']> = { ...chartExtrasOf(spec) };
+  if (spec.allowAllZero === true) carried.allowAllZero = true;
+  if (Object.keys(carried).length > 0) out.carried = carried;
   if (doc.glyphs) out.glyphs = doc.glyphs;
   return out;
 }
@@ -246,6 +255,7 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
   if (ed.title.trim() !== '') document.title = ed.title;
   if (ed.source.trim() !== '') document.source = ed.source;
   if (ed.glyphs && Object.keys(ed.glyphs).length > 0) document.glyphs = ed.glyphs;
+  if (ed.carried) Object.assign(document, ed.carried);
   return { document, rowProblems, otherProblems, chartGlyphProblem: null };
 }
 

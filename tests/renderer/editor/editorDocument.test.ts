@@ -83,3 +83,21 @@ describe('fromChartDocument / toChartDocument', () => {
     expect(rowForProblemPath(ed, 'encoding.unit')).toBeNull();
   });
 });
+
+describe('what the editor does not edit', () => {
+  it('keeps standardisation steps, dismissed findings and the all-zero permission through a load and save', () => {
+    const perResident = DEMO_CHARTS.find((d) => d.name === 'repeat-library-per-resident')!.document as Record<string, unknown>;
+    expect(perResident.standardise).toBeDefined();
+    const dismissed = [{ code: 'context-thin', reason: 'Only two years were collected.' }];
+    const input = { ...perResident, dismissed, allowAllZero: true };
+    const saved = toChartDocument(fromChartDocument(input)).document as Record<string, unknown>;
+    expect(saved.standardise).toEqual(perResident.standardise);
+    expect(saved.dismissed).toEqual(dismissed);
+    expect(saved.allowAllZero).toBe(true);
+    // And a document without them stays without them.
+    const plain = toChartDocument(fromChartDocument(BIKES)).document as Record<string, unknown>;
+    expect(plain).not.toHaveProperty('standardise');
+    expect(plain).not.toHaveProperty('dismissed');
+    expect(plain).not.toHaveProperty('allowAllZero');
+  });
+});
