@@ -505,7 +505,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
                 panel?.focus();
               }}
             >
-              <span className="export-blocked-label">Export blocked{exportBlockShort ? ':' : ''}</span>
+              <span className="export-blocked-label">{exportBlockShort ? 'Blocked:' : 'Export blocked'}</span>
               {exportBlockShort && <span className="export-blocked-reason" data-testid="export-blocked-reason">{exportBlockShort}</span>}
             </button>
           )}
@@ -519,7 +519,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
                 ))}
               </select>
               <button type="button" className="button" disabled={exportBlock !== null || working !== null} title={exportBlock ?? `Export a PNG at ${ppi} ppi (${shortcutLabel('export-png', isMac)})`} onClick={() => void exportAs('png')} data-testid="export-png">
-                <Icon name="export" /> PNG
+                PNG
               </button>
             </>
           )}
@@ -527,7 +527,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
             Copy SVG
           </button>
           <button type="button" className="button" disabled={working !== null} title={`Export a PDF for print (${shortcutLabel('export-pdf', isMac)})`} onClick={() => setPdfDialog(true)} data-testid="export-pdf">
-            <Icon name="export" /> PDF
+            PDF…
           </button>
           <button type="button" className="button primary" disabled={exportBlock !== null || working !== null} title={exportBlock ?? `Export the SVG (${shortcutLabel('export-svg', isMac)})`} onClick={() => void exportAs('svg')} data-testid="export-svg">
             <Icon name="export" /> Export SVG

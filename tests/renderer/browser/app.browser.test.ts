@@ -299,6 +299,8 @@ describe.skipIf(!haveChromium)(`the app in Chromium (skipped when ${CHROMIUM} is
     expect(await page.getByTestId('doc-name').textContent()).toBe('cafe.json');
 
     await page.getByRole('button', { name: 'Recent' }).click();
+    // The list opens once the host has answered; count() does not wait for it.
+    await page.locator('.recent-list[role=menu]').waitFor();
     const item = page.getByRole('menuitem', { name: /cafe\.json/ });
     expect(await item.count()).toBe(1);
     await page.keyboard.press('Escape');

@@ -193,6 +193,9 @@ describe.skipIf(!haveChromium)(`documents in Chromium (skipped when ${CHROMIUM} 
       const recoveryFile = path.join(folder, 'recovery.json');
       await expect.poll(() => (fs.existsSync(recoveryFile) ? JSON.parse(fs.readFileSync(recoveryFile, 'utf8')).copy : null), { timeout: 10_000 }).toBeNull();
       await page.getByRole('button', { name: 'Recent' }).click();
+      // The list opens only once the host has answered listRecent (an IPC round trip), and
+      // allTextContents does not wait: read it after the menu is there, not before.
+      await page.locator('.recent-list[role=menu]').waitFor();
       expect(await page.locator('.recent-item .recent-name').allTextContents()).toContain('copy of rides.json');
     });
 
