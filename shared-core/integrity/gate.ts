@@ -169,8 +169,12 @@ function addSuggestions(out: Set<string>, opts: GateOptions, kinds: Set<string>)
       out.add('Or repeat or stack glyphs of one size (mode "repeat" or "stack"), so each glyph stands for a fixed amount.');
     }
   } else if (mode === 'repeat' || mode === 'stack') {
-    out.add('Use one glyph at one size for the whole chart, so every glyph carries the same amount of ink.');
-    if (mode === 'stack') out.add('In a stack, give each glyph one pitch (glyph size plus gap) of length from the baseline.');
+    // Rounding to whole glyphs already explains the distortion; advice about sizes and pitch would send the
+    // designer looking for a fault the chart does not have.
+    if (rounding !== 'whole') {
+      out.add('Use one glyph at one size for the whole chart, so every glyph carries the same amount of ink.');
+      if (mode === 'stack') out.add('In a stack, give each glyph one pitch (glyph size plus gap) of length from the baseline.');
+    }
     if (reading === 'area') out.add('Different glyphs in one chart carry different ink: read the chart by count, or use one glyph throughout.');
   } else if (mode === 'fill') {
     out.add('Fill each glyph by its share of ink (cut where the ink on one side equals the share), not by a share of its height or width.');

@@ -77,6 +77,23 @@ describe('findings: one code and one fix per problem', () => {
     expect(verdict.suggestions.join(' ')).not.toMatch(/one glyph at one size/);
   });
 
+  it('a distortion from rounding to whole glyphs is told to cut by ink or use a smaller unit, not to fix sizes or pitch', () => {
+    // 3 whole glyphs for 2.04 units against 1 for 1 (Tufte's effect form: (3 - 1) / (2.04 - 1) = 1.92).
+    const lf = lieFactors([
+      { label: 'Station', data: 1, graphic: 1 },
+      { label: 'Lane', data: 2.04, graphic: 3 },
+    ]);
+    for (const mode of ['repeat', 'stack'] as const) {
+      const whole = gate(lf, { mode, reading: 'count', rounding: 'whole' }).suggestions.join(' ');
+      expect(whole).toMatch(/partial glyphs cut by ink/);
+      expect(whole).toMatch(/smaller unit/);
+      expect(whole).not.toMatch(/one glyph at one size|one pitch/);
+      // With remainders already cut by ink, rounding cannot explain it: sizes and pitch are the suspects.
+      const inkCut = gate(lf, { mode, reading: 'count', rounding: 'ink-cut' }).suggestions.join(' ');
+      expect(inkCut).toMatch(/one glyph at one size/);
+    }
+  });
+
   it('a distorted pair is "lie-factor", a zero drawn with ink is "zero-drawn"', () => {
     const verdict = gate(
       lieFactors([
