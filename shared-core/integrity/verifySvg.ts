@@ -12,7 +12,7 @@ import { measureText } from '../text/measureText';
 import { DISTORTION_LIMITS, gate, type GateMode, type GateRounding } from './gate';
 import { lieFactors, type LieFactorPair, type LieFactorReport } from './lieFactor';
 import type { IntegrityFinding } from './check';
-import { preflight, type Finding, type PreflightOptions } from './preflight';
+import { preflight, type Finding, type PartialGlyph, type PreflightOptions } from './preflight';
 import { createShapeInkCache } from './shapeInk';
 
 export interface VerifyOptions {
@@ -429,7 +429,17 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   }
 
   // ---- preflight from the file's own geometry
-  const preflightFindings = preflightFromFile(file, collected.shapes, owners, markInks, legendInks, byText, rest, roughInkOf, opts);
+  // Partial glyphs as measured: each partial piece's ink against its mark's full-glyph ink, for preflight's slivers.
+  const partials: PartialGlyph[] = [];
+  markInks.forEach((mi, i) => {
+    const unit = marks[i].unitInkMm2;
+    if (!unit || !(unit > 0)) return;
+    for (const p of mi.pieces) {
+      if (p.piece.part !== 'partial' || !(p.ink.areaMm2 > 0) || !p.ink.boxMm) continue;
+      partials.push({ owner: `"${mi.mark.label}"`, share: p.ink.areaMm2 / unit, shortSideMm: Math.min(p.ink.boxMm.width, p.ink.boxMm.height) });
+    }
+  });
+  const preflightFindings = preflightFromFile(file, collected.shapes, owners, markInks, legendInks, byText, rest, roughInkOf, opts, partials);
 
   const smallestGlyph = findSmallestGlyph(markInks, fulls, reading);
   const smallestInk = findSmallestInk(markInks, reading);
@@ -1054,6 +1064,7 @@ function preflightFromFile(
   rest: { shape: PaintedShape; kind: Owner['kind'] }[],
   inkOf: (shapes: PaintedShape[]) => Ink,
   opts: VerifyOptions,
+  partials: PartialGlyph[],
 ): Finding[] {
   const { page } = file;
   const s = page.mmPerUnit;
@@ -1107,7 +1118,7 @@ function preflightFromFile(
   const declared = Number(file.root.attrs['data-safe-margin-mm']);
   const safeMarginMm = opts.safeMarginMm ?? (Number.isFinite(declared) && declared >= 0 && file.root.attrs['data-safe-margin-mm'] !== undefined ? declared : DEFAULT_SAFE_MARGIN_MM);
   return preflight(
-    { page: { widthMm: page.widthMm, heightMm: page.heightMm }, bleedMm: page.bleedMm, safeMarginMm, strokes, texts, contentBoxMm, backgroundCoversBleed },
+    { page: { widthMm: page.widthMm, heightMm: page.heightMm }, bleedMm: page.bleedMm, safeMarginMm, strokes, texts, contentBoxMm, backgroundCoversBleed, partials },
     opts.preflight,
   );
 }

@@ -109,33 +109,43 @@ function references(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: numbe
   return refs;
 }
 
-/** Height the scale legend adds below the marks, gap included: the reference glyphs over one line of their values. */
-export function scaleLegendHeightMm(glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number): number {
+/**
+ * Height the scale legend adds below the marks, gap included: the reference glyphs over one line of their
+ * values; with several glyphs drawn, the tallest first reference sets the row.
+ */
+export function scaleLegendHeightMm(glyphs: ResolvedGlyph | readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number): number {
+  const list = Array.isArray(glyphs) ? (glyphs as readonly ResolvedGlyph[]) : [glyphs as ResolvedGlyph];
   const first = readableFloor(maxValue / 4);
-  if (!(first > 0)) return 0;
-  const heightMm = glyph.bbox.height * Math.sqrt((inkMm2PerValue * first) / glyph.areaUnits2);
+  if (!(first > 0) || list.length === 0) return 0;
+  const heightMm = Math.max(...list.map((g) => g.bbox.height * Math.sqrt((inkMm2PerValue * first) / g.areaUnits2)));
   return LEGEND_GAP_MM + heightMm + KEY_TEXT_GAP_MM + lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm;
 }
 
 /**
  * The scale key as a grid: the caption in the first column, then one column per reference glyph, the glyphs
- * standing on one baseline and each value centred under its glyph on the caption's text line.
+ * standing on one baseline and each value centred under its glyph on the caption's text line. Every distinct
+ * glyph drawn gets its columns (the first glyph both references, each further glyph the first), each at the
+ * chart's one ink per value, so a row drawn with its own glyph is keyed too.
  */
-export function placeScaleLegend(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number, unitName: string, box: BoxMm, topMm: number): LegendPart {
-  const refs = references(book, glyph, inkMm2PerValue, maxValue);
-  if (refs.length === 0) return { texts: [], legendKeys: [], bottomMm: topMm };
+export function placeScaleLegend(book: GlyphBook, glyphs: ResolvedGlyph | readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number, unitName: string, box: BoxMm, topMm: number): LegendPart {
+  const list = Array.isArray(glyphs) ? (glyphs as readonly ResolvedGlyph[]) : [glyphs as ResolvedGlyph];
+  const columns = list.flatMap((g, gi) => {
+    const refs = references(book, g, inkMm2PerValue, maxValue);
+    return (gi === 0 ? refs : refs.slice(0, 1)).map((ref, i) => ({ glyph: g, ref, colorIndex: i }));
+  });
+  if (columns.length === 0) return { texts: [], legendKeys: [], bottomMm: topMm };
   const m = lineMetrics(TEXT_SIZE_MM.legend);
-  const glyphBaseMm = topMm + refs[0].shape.heightMm;
+  const glyphBaseMm = topMm + Math.max(...columns.map((c) => c.ref.shape.heightMm));
   const textBaselineMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.ascentMm;
   const bottomMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.boxHeightMm;
   const texts: SceneText[] = [makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted })];
   const legendKeys: SceneLegendKey[] = [];
   let columnXMm = box.x + textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend) + 3;
-  refs.forEach((ref, i) => {
+  columns.forEach(({ glyph, ref, colorIndex }) => {
     const valueText = `${formatValue(ref.value)}${unitName ? ` ${unitName}` : ''}`;
     const columnWMm = Math.max(ref.shape.widthMm, textWidthMm(valueText, TEXT_SIZE_MM.legend));
     const centreXMm = columnXMm + columnWMm / 2;
-    legendKeys.push({ glyph: glyph.name, region: book.full(ref.shape, centreXMm - ref.shape.widthMm / 2, glyphBaseMm - ref.shape.heightMm).region, color: INK_COLORS.referenceKeys[i + 1] ?? INK_COLORS.key, unitValue: ref.value, unitName });
+    legendKeys.push({ glyph: glyph.name, region: book.full(ref.shape, centreXMm - ref.shape.widthMm / 2, glyphBaseMm - ref.shape.heightMm).region, color: INK_COLORS.referenceKeys[colorIndex + 1] ?? INK_COLORS.key, unitValue: ref.value, unitName });
     texts.push(makeText({ role: 'legend', text: valueText, xMm: centreXMm, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, anchor: 'middle', color: INK_COLORS.muted }));
     columnXMm += columnWMm + 4;
   });

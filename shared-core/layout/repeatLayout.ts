@@ -161,10 +161,11 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     const baselineMm = rowTopMm + p.cellHMm / 2 + lm.capHeightMm / 2;
     if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: labelSizeMm, owner: row.id }, labelText[i], lm.lineHeightMm));
     if (layout.valueLabels) {
-      // On one left-to-right row the value follows its last glyph, like a bar-end label; otherwise it
-      // stands after the grid.
+      // On one left-to-right row the value follows the ink of its last glyph, like a bar-end label (a partial
+      // glyph's cut edge, not its empty slot); otherwise it stands after the grid.
       const oneRow = slots[i] <= p.columns && direction === 'ltr';
-      const endMm = oneRow ? gridXMm + gridWidthMm(Math.max(slots[i], 0), p) : gridXMm + fullWidthMm;
+      const inkEndMm = pieces.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
+      const endMm = oneRow ? (Number.isFinite(inkEndMm) ? inkEndMm : gridXMm) : gridXMm + fullWidthMm;
       texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
     }
     topMm += p.bandMm[i] + bandGapMm;

@@ -7,7 +7,7 @@ import { noRoomError } from './noRoom';
 import { planCellRows, TEXT_GAP_MM, type CellItem } from './cellRows';
 import { MIN_GLYPH_MM } from './fitSize';
 import { formatValue, lineMetrics, makeLines, makeText, TEXT_SIZE_MM } from './labels';
-import { type LayoutContext, type ModeResult } from './layoutContext';
+import { keyGlyphs, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeScaleLegend, scaleLegendHeightMm } from './legend';
 import { INK_COLORS } from './palette';
 
@@ -28,6 +28,8 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
   const tallest = Math.max(...items.map((it) => it.heightPerSize), 1e-12);
   const largestSide = Math.max(...items.map((it) => Math.max(it.widthPerSize, it.heightPerSize)), 1e-12);
   const asked = layout.glyphSizeMm;
+  // Every distinct glyph drawn is keyed, not only the chart's.
+  const keys = keyGlyphs(ctx);
   // glyphSizeMm, when given, is the larger side of the largest glyph's ink box.
   const maxSize = asked !== undefined ? asked / largestSide : box.height / tallest;
   const inkPerValue = (size: number) => (maxValue > 0 ? (size * size) / maxValue : 0);
@@ -35,7 +37,7 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
     columns: layout.columns,
     labels: layout.labels,
     valueLabels: layout.valueLabels,
-    legendHeightMm: (size) => (layout.legend && maxValue > 0 ? scaleLegendHeightMm(ctx.chartGlyph, inkPerValue(size), maxValue) : 0),
+    legendHeightMm: (size) => (layout.legend && maxValue > 0 ? scaleLegendHeightMm(keys, inkPerValue(size), maxValue) : 0),
     maxSize,
     minSize: Math.min(MIN_GLYPH_MM / largestSide, maxSize),
   });
@@ -70,7 +72,7 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
 
   const legendKeys: SceneLegendKey[] = [];
   if (layout.legend && k > 0) {
-    const legend = placeScaleLegend(book, ctx.chartGlyph, k, maxValue, spec.encoding.unitName ?? '', box, plan.bottomMm + LEGEND_GAP_MM);
+    const legend = placeScaleLegend(book, keys, k, maxValue, spec.encoding.unitName ?? '', box, plan.bottomMm + LEGEND_GAP_MM);
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }

@@ -95,4 +95,24 @@ describe('legend keys', () => {
       expect([...keyed].sort()).toEqual([...drawn].sort());
     }
   });
+
+  it('keys every glyph drawn in scale mode, each key at the marks\' ink per value, and the chart still passes', { timeout: 60_000 }, () => {
+    // Common practice, no source: a key explains every symbol the chart draws. Values 12 and 45.5 litres
+    // (the chores dataset of issue 7): the first reference is readableFloor(45.5 / 4) = 10.
+    const doc: ChartDocument = {
+      format: 'tallyglyph.chart/1',
+      data: [{ label: 'Dishes', value: 12 }, { label: 'Laundry', value: 45.5, glyph: 'bus' }],
+      encoding: { mode: 'scale', glyph: 'bike', unitName: 'litres' },
+      page: { width: 180, height: 120, unit: 'mm' },
+    } as ChartDocument;
+    const scene = layoutChart(parseChart(doc));
+    const drawn = new Set(scene.marks.flatMap((m) => m.glyphs.map((g) => g.glyph)));
+    expect([...drawn].sort()).toEqual(['bike', 'bus']);
+    expect([...new Set(scene.legendKeys.map((k) => k.glyph))].sort()).toEqual(['bike', 'bus']);
+    const busKeys = scene.legendKeys.filter((k) => k.glyph === 'bus');
+    expect(busKeys.map((k) => k.unitValue)).toEqual([10]);
+    const result = renderChart(doc);
+    expect(result.report.problems).toEqual([]);
+    expect(result.report.pass).toBe(true);
+  });
 });

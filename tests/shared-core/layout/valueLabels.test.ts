@@ -1,0 +1,29 @@
+// Value labels sit right after the ink of their row of glyphs, like bar-end labels (common practice, no source),
+// not after the empty rest of a partial glyph's slot.
+import { describe, expect, it } from 'vitest';
+import { parseChart } from '../../../shared-core/document';
+import { layoutChart } from '../../../shared-core/layout';
+
+describe('repeat value labels', () => {
+  it('start 2 mm after the right edge of the last glyph\'s ink, partial glyphs included', () => {
+    // 40.3 / 10 = 4.03 glyphs: the fifth is a 3% ink-true cut, so its ink ends near the slot's left side.
+    const scene = layoutChart(parseChart({
+      format: 'tallyglyph.chart/1',
+      data: [{ label: 'Kiln Lane', value: 40.3 }, { label: 'Bell Yard', value: 70 }],
+      encoding: { mode: 'repeat', glyph: 'bike', unit: 10 },
+      page: { width: 180, height: 120, unit: 'mm' },
+    }));
+    for (const mark of scene.marks) {
+      const inkRightMm = Math.max(...mark.glyphs.flatMap((g) => g.region.flatMap((ring) => ring.map((pt) => pt.x))));
+      const label = scene.texts.find((t) => t.role === 'value-label' && t.owner === mark.id)!;
+      // VALUE_PAD_MM = 2 in repeatLayout.ts.
+      expect(label.xMm - inkRightMm).toBeCloseTo(2, 6);
+    }
+    // The partial glyph really is short: its ink ends well before a full glyph's would.
+    const kiln = scene.marks[0].glyphs;
+    const partial = kiln.find((g) => g.part === 'partial')!;
+    const full = kiln.find((g) => g.part === 'full')!;
+    const width = (r: typeof full.region) => Math.max(...r.flatMap((ring) => ring.map((pt) => pt.x))) - Math.min(...r.flatMap((ring) => ring.map((pt) => pt.x)));
+    expect(width(partial.region)).toBeLessThan(0.5 * width(full.region));
+  });
+});
