@@ -1,33 +1,23 @@
 // The app in Debian's Chromium, driven by playwright-core (no browser download): the production
-// build served by vite preview on a fixed port, the browser host doing files as downloads.
-import { spawnSync } from 'node:child_process';
+// build served by vite preview on a free port (helpers/appServer), the browser host doing files as downloads.
 import fs from 'node:fs';
-import os from 'node:os';
 import path from 'node:path';
-import { fileURLToPath } from 'node:url';
-import { chromium, type Browser, type BrowserContext, type Download, type Page } from 'playwright-core';
+import type { BrowserContext, Download, Page } from 'playwright-core';
 import { PNG } from 'pngjs';
-import { preview, type PreviewServer } from 'vite';
 import { afterAll, afterEach, beforeAll, beforeEach, describe, expect, it } from 'vitest';
 import { parseChart } from '../../../shared-core/document';
 import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { renderChart } from '../../../shared-core/pipeline';
 import { readPngSize, renderSvgPixels } from '../../../main/raster';
 import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
+import { CHROMIUM, haveChromium, SHOTS, startApp, type AppServer } from './helpers/appServer';
 
-const REPO = fileURLToPath(new URL('../../../', import.meta.url));
-const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
-const haveChromium = fs.existsSync(CHROMIUM);
 /** Where the app is served: a free port the system gives, so browser test files running side by side never collide. */
 let BASE = '';
-const SHOTS = path.join(REPO, 'test-results', 'browser');
-const CHROMIUM_ARGS = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run', '--disable-background-networking', '--disable-component-update', '--disable-sync'];
 
 const BIKES = DEMO_CHARTS[0].document;
 
-let outDir: string;
-let server: PreviewServer | null = null;
-let browser: Browser | null = null;
+let app: AppServer | null = null;
 let context: BrowserContext;
 let page: Page;
 let pageErrors: string[] = [];
@@ -64,34 +54,15 @@ async function waitForVerdict(kind: 'pass' | 'refused' | 'waiting'): Promise<voi
 
 describe.skipIf(!haveChromium)(`the app in Chromium (skipped when ${CHROMIUM} is missing)`, () => {
   beforeAll(async () => {
-    outDir = fs.mkdtempSync(path.join(os.tmpdir(), 'tallyglyph-web-'));
-    // A separate process, so the build sees NODE_ENV=production rather than the test runner's "test".
-    const vite = path.join(REPO, 'node_modules', 'vite', 'bin', 'vite.js');
-    const built = spawnSync(process.execPath, [vite, 'build', '--config', path.join(REPO, 'renderer', 'vite.config.ts'), '--outDir', outDir, '--logLevel', 'warn'], {
-      cwd: REPO,
-      encoding: 'utf8',
-      env: { ...process.env, NODE_ENV: 'production' },
-      timeout: 120_000,
-    });
-    if (built.status !== 0) throw new Error(`vite build failed: ${built.stderr}${built.stdout}`);
-    server = await preview({
-      configFile: path.join(REPO, 'renderer', 'vite.config.ts'),
-      build: { outDir },
-      preview: { host: '127.0.0.1', port: 0, strictPort: true },
-      logLevel: 'warn',
-    });
-    BASE = server.resolvedUrls?.local[0] ?? '';
-    if (!BASE) throw new Error('vite preview did not say where it serves the app.');
-    browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+    app = await startApp();
+    BASE = app.base;
     // One context for the suite: pages share its HTTP and compiled-code caches, so each test's fresh
     // page loads faster; every test still starts from a newly loaded app.
-    context = await browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
+    context = await app.browser.newContext({ viewport: { width: 1440, height: 900 }, acceptDownloads: true });
   }, 180_000);
 
   afterAll(async () => {
-    await browser?.close();
-    await server?.close();
-    if (outDir) fs.rmSync(outDir, { recursive: true, force: true });
+    await app?.close();
   });
 
   beforeEach(async () => {
