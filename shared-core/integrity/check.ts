@@ -28,7 +28,15 @@ export interface IntegrityFinding {
   /** The source the rule rests on, or "common practice, no source". */
   basis?: string;
   action?: FixAction;
+  /** Who or what on the page the finding is about when that is not a data row (print preflight: "title text", "baseline or rule"). */
+  owner?: string;
 }
+
+/**
+ * What a check of the written file looks at: the lie factor itself, whether the ink can be seen, whether the
+ * file keeps one scale and agrees with its own records, or print practice. Chart rules leave it unset.
+ */
+export type CheckCategory = 'lie-factor' | 'visibility' | 'consistency' | 'preflight';
 
 export interface IntegrityCheck<Input> {
   /** The check's own code; its findings use it, or a sub-code that starts with it. */
@@ -37,5 +45,9 @@ export interface IntegrityCheck<Input> {
   name: string;
   /** The severity of its findings unless a finding says otherwise. */
   severity: Severity;
+  /** What the check looks at (checks of the written file); a finding's own `category` is a data row, not this. */
+  category?: CheckCategory;
+  /** The source the check rests on, or "common practice, no source". */
+  basis?: string;
   run(input: Input): IntegrityFinding[];
 }

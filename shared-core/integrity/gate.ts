@@ -1,11 +1,15 @@
-// Turns a lie-factor report into pass or refuse, with the reason in plain words and what to try next.
+// Turns a lie-factor report into pass or refuse, with the reason in plain words and what to try next. Its
+// findings carry the codes of the lie-factor checks in the registry (./checks), which report them.
 
 import { TallyError } from '../errors';
 import type { IntegrityFinding } from './check';
+import { lieFactor as lieFactorCheck } from './checks/lieFactor';
+import { TUFTE_BASIS } from './checks/lieFactorBasis';
+import { notDrawn } from './checks/notDrawn';
+import { referenceNotDrawn } from './checks/referenceNotDrawn';
+import { spread as spreadCheck } from './checks/spread';
+import { zeroDrawn } from './checks/zeroDrawn';
 import type { LieFactorPair, LieFactorReport } from './lieFactor';
-
-/** Where the gate's rule comes from, named on each of its findings. */
-const TUFTE_BASIS = 'Tufte, The Visual Display of Quantitative Information (1983), p. 57';
 
 /**
  * Tufte (The Visual Display of Quantitative Information, 1983, ch. 2, p. 57): lie factors
@@ -216,32 +220,32 @@ export function gate(report: LieFactorReport, opts: GateOptions = {}): GateResul
     const sentence = pairSentence(pair, low, high, reading);
     if (pair.problem === 'reference-not-drawn') {
       kinds.add('not-drawn');
-      flag('reference-not-drawn', sentence, pair.reference);
+      flag(referenceNotDrawn.code, sentence, pair.reference);
     } else if (pair.problem === 'not-drawn') {
       kinds.add('not-drawn');
-      flag('not-drawn', sentence, pair.label);
+      flag(notDrawn.code, sentence, pair.label);
     } else {
       kinds.add('lie-factor');
-      flag('lie-factor', sentence, pair.label);
+      flag(lieFactorCheck.code, sentence, pair.label);
     }
   }
 
   if (report.pairs.length === 0 && report.notDrawn.length > 0) {
     kinds.add('not-drawn');
-    flag('reference-not-drawn', `${report.reference} (value ${numberText(report.referenceData ?? 0)}) is not drawn at all.`, report.reference ?? undefined);
+    flag(referenceNotDrawn.code, `${report.reference} (value ${numberText(report.referenceData ?? 0)}) is not drawn at all.`, report.reference ?? undefined);
   }
 
   for (const zero of report.zeros) {
     if (zero.drawnAsZero) continue;
     kinds.add('zero');
-    flag('zero-drawn', `${zero.label} has a value of 0 but is drawn with ink (measured ${numberText(zero.graphic)}); a zero must show nothing.`, zero.label);
+    flag(zeroDrawn.code, `${zero.label} has a value of 0 but is drawn with ink (measured ${numberText(zero.graphic)}); a zero must show nothing.`, zero.label);
   }
 
   const spreadLimit = Math.min(high, 1 / low);
   if (failing.length === 0 && report.spread !== null && report.spreadBetween && !within(report.spread, 1 / spreadLimit, spreadLimit)) {
     const { highest, lowest } = report.spreadBetween;
     flag(
-      'spread',
+      spreadCheck.code,
       `The chart does not keep one scale: per unit of value, ${highest} is drawn ${factorText(report.spread, 1 / spreadLimit, spreadLimit)}x as large as ${lowest} ` +
         `(allowed up to ${numberText(spreadLimit)}).`,
       highest,
@@ -250,7 +254,7 @@ export function gate(report: LieFactorReport, opts: GateOptions = {}): GateResul
   }
 
   const fixFor = (code: string): string => {
-    const kind = code === 'reference-not-drawn' ? 'not-drawn' : code === 'zero-drawn' ? 'zero' : code;
+    const kind = code === referenceNotDrawn.code ? 'not-drawn' : code === zeroDrawn.code ? 'zero' : code;
     const own = new Set<string>();
     addSuggestions(own, opts, new Set([kind]));
     return [...own][0] ?? 'Repeat or stack glyphs of one size with partial glyphs cut by ink, so count, length and ink stay in proportion to the data.';
