@@ -1,14 +1,11 @@
 // Integrity findings as the command line prints them: one block per finding (severity, code, name, what is
 // wrong, the fix, the one-click action's label and the basis), shared by `check` and `render`.
-import type { IntegrityFinding } from '../../shared-core/integrity/index';
-import { CHART_RULES, type DismissedResult } from '../../shared-core/integrity/rules/index';
+import { checkOfCode, type IntegrityFinding } from '../../shared-core/integrity/index';
+import type { DismissedResult } from '../../shared-core/integrity/rules/index';
 
-const RULE_NAMES = new Map(CHART_RULES.map((r) => [r.code, r.name]));
-
-/** The rule a code belongs to: the code itself or the rule code its sub-code starts with. */
+/** The name of the check or rule a code belongs to (from the registries): the code itself or the one its sub-code starts with. */
 function ruleName(code: string): string | undefined {
-  for (const [rule, name] of RULE_NAMES) if (code === rule || code.startsWith(`${rule}-`)) return name;
-  return undefined;
+  return checkOfCode(code)?.name;
 }
 
 export function findingText(f: IntegrityFinding, indent = ''): string {

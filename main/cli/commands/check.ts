@@ -5,7 +5,7 @@ import path from 'node:path';
 import { parseArgs } from 'node:util';
 import { parseChart } from '../../../shared-core/document/index';
 import { isTallyError, TallyError } from '../../../shared-core/errors';
-import { verifySvg, type IntegrityFinding } from '../../../shared-core/integrity/index';
+import { listChecks, verifySvg, type CheckListing, type IntegrityFinding } from '../../../shared-core/integrity/index';
 import { checkChart, measureDataInk, type DataInkMeasure, type DismissedResult, type RuleReport } from '../../../shared-core/integrity/rules/index';
 import { layoutChart } from '../../../shared-core/layout/index';
 import { DEFAULT_XML_LIMITS, writeSvg } from '../../../shared-core/svg/index';
@@ -13,6 +13,7 @@ import { countsText, dismissedText, findingText } from '../findingsText';
 import { EXIT, type CliCommand, type CliIO } from '../types';
 
 const USAGE = `Usage: tallyglyph check <chart.json> [--json] [--strict]
+       tallyglyph check --list [--json]
 
 Lays out the chart, measures the SVG it would write (Tufte's lie factor, allowed 0.95-1.05) and runs the
 rules beyond the lie factor: money not adjusted for prices, totals of groups of different size, mixed
@@ -24,6 +25,8 @@ Exit status: 0 nothing blocks export, 1 a finding blocks export (with --strict: 
 Options:
   --json     print { ok, file, lieFactor, ink, findings, dismissed } as JSON
   --strict   treat open warnings like blocking findings for the exit status
+  --list     print every check of the written file and every chart rule (code, severity, name) and exit;
+             with --json, { checks: [{ code, name, severity, registry, category, basis }] }
 `;
 
 /** Largest chart document read; far above any real chart, and the same order as the XML reader's limit. */
@@ -78,6 +81,23 @@ function inkText(ink: DataInkMeasure): string {
   return `Ink: data marks ${pct(ink.dataMm2)}, reading aids ${pct(ink.readingAidMm2)}, decoration ${pct(ink.decorationMm2)} (${total.toFixed(0)} mm² in all).`;
 }
 
+/** The registries as a table: checks of the written file, then the chart rules, in the order they run. */
+export function checksListText(checks: readonly CheckListing[] = listChecks()): string {
+  const codeWidth = Math.max(...checks.map((c) => c.code.length));
+  const row = (c: CheckListing) => `  ${c.code.padEnd(codeWidth)}  ${c.severity.padEnd(8)}  ${(c.category ?? 'rule').padEnd(11)}  ${c.name}`;
+  const file = checks.filter((c) => c.registry === 'file');
+  const rules = checks.filter((c) => c.registry === 'rule');
+  return [
+    `Checks of the written file (${file.length}; verify, render and export run them; blocking findings stop an export, preflight only warns):`,
+    ...file.map(row),
+    '',
+    `Chart rules (${rules.length}; check and render run them on the document; each can be dismissed with a reason):`,
+    ...rules.map(row),
+    '',
+    'Codes, triggers and fixes: docs/integrity-rules.md',
+  ].join('\n');
+}
+
 function usageError(io: CliIO, message: string): number {
   io.stderr(`tallyglyph check: ${message}\n${USAGE}`);
   return EXIT.usage;
@@ -86,11 +106,21 @@ function usageError(io: CliIO, message: string): number {
 async function run(argv: string[], io: CliIO): Promise<number> {
   let parsed;
   try {
-    parsed = parseArgs({ args: argv, options: { json: { type: 'boolean', default: false }, strict: { type: 'boolean', default: false } }, allowPositionals: true, strict: true });
+    parsed = parseArgs({
+      args: argv,
+      options: { json: { type: 'boolean', default: false }, strict: { type: 'boolean', default: false }, list: { type: 'boolean', default: false } },
+      allowPositionals: true,
+      strict: true,
+    });
   } catch (e) {
     return usageError(io, (e as Error).message);
   }
   const { values, positionals } = parsed;
+  if (values.list) {
+    if (positionals.length || values.strict) return usageError(io, '--list takes no chart document and no --strict.');
+    io.stdout((values.json ? JSON.stringify({ checks: listChecks() }, null, 2) : checksListText()) + '\n');
+    return EXIT.ok;
+  }
   if (positionals.length !== 1) return usageError(io, positionals.length ? 'give exactly one chart document.' : 'which chart document? Give a .json file.');
   const shown = positionals[0];
   let result: ChartCheck;
