@@ -82,6 +82,8 @@ export interface MarkInk {
   /** The union of the mark's pieces and any loose shapes. */
   ink: Ink;
   pieces: PieceInk[];
+  /** The full glyphs that carry ink, found once for every check that compares glyph sizes. */
+  fulls: PieceInk[];
   /** Shapes of the mark outside any piece. */
   other: number;
 }
@@ -302,7 +304,7 @@ export function measureFile(svgText: string, opts: VerifyOptions = {}): Measured
     const loose = looseByMark.get(mark) ?? [];
     const inks = pieces.map((p) => p.ink);
     if (loose.length) inks.push(inkOf(loose));
-    return { mark, ink: unionInks(inks, inkOfRegion), pieces, other: loose.length };
+    return { mark, ink: unionInks(inks, inkOfRegion), pieces, fulls: fullsOf({ pieces }), other: loose.length };
   });
   const legendInks = file.legendKeys.map((_, i) => inkOf(byLegend.get(i) ?? []));
   const paperColour = file.backgrounds.length ? normaliseColour(backgroundPaint(file.backgrounds[file.backgrounds.length - 1])) : '#ffffff';
@@ -312,7 +314,7 @@ export function measureFile(svgText: string, opts: VerifyOptions = {}): Measured
   const unitByMark = new Map<ChartSvgMark, number>();
   if (reading === 'count' || reading === 'length') {
     for (const mi of markInks) {
-      const f = fullsOf(mi);
+      const f = mi.fulls;
       if (!f.length) continue;
       unitByMark.set(mi.mark, f.reduce((a, p) => a + p.ink.areaMm2, 0) / f.length);
     }
@@ -521,7 +523,7 @@ function measureStacks(markInks: MarkInk[], out: StackMeasure[], notes: string[]
   let missingSlots = false;
   for (const mi of markInks) {
     const pts: { slot: number; x: number; y: number; box: Box }[] = [];
-    for (const p of fullsOf(mi)) {
+    for (const p of mi.fulls) {
       if (p.piece.slot === null) {
         missingSlots = true;
         continue;

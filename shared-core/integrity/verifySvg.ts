@@ -5,7 +5,7 @@ import { TallyError, type Warning } from '../errors';
 import type { ChartSummary, Reading } from '../scene/types';
 import type { IntegrityFinding } from './check';
 import { FILE_CHECKS } from './checks/index';
-import { fullsOf, num } from './checks/fileFinding';
+import { num } from './checks/fileFinding';
 import { asPreflightFinding } from './checks/preflightShared';
 import type { GateMode } from './gate';
 import type { LieFactorPair, LieFactorReport } from './lieFactor';
@@ -174,7 +174,7 @@ function findSmallestGlyph(m: MeasuredFile): VerifyReport['smallestGlyph'] {
       const area = whole.reduce((a, p) => a + p.ink.areaMm2, 0);
       const perimeter = whole.reduce((a, p) => a + p.ink.perimeterMm, 0);
       if (area > 0) consider(mi.mark, area, perimeter);
-    } else for (const p of fullsOf(mi)) consider(mi.mark, p.ink.areaMm2, p.ink.perimeterMm);
+    } else for (const p of mi.fulls) consider(mi.mark, p.ink.areaMm2, p.ink.perimeterMm);
   }
   return best;
 }

@@ -1,7 +1,7 @@
 // Within one mark, every whole glyph must carry the same ink: each glyph stands for the same amount.
 import type { IntegrityFinding } from '../check';
 import type { FileCheck } from '../measureFile';
-import { blockingFinding, fullsOf, num, SAME_GLYPH_TOLERANCE } from './fileFinding';
+import { blockingFinding, num, SAME_GLYPH_TOLERANCE } from './fileFinding';
 
 /** Isotype: each symbol stands for a fixed quantity, so every copy is drawn at one size. */
 export const ISOTYPE_BASIS = 'Isotype (Neurath): each symbol stands for a fixed quantity, drawn at one size (paraphrase of secondary sources)';
@@ -16,7 +16,7 @@ export const glyphSizeVaries: FileCheck = {
     if (m.reading !== 'count' && m.reading !== 'length') return [];
     const out: IntegrityFinding[] = [];
     for (const mi of m.markInks) {
-      const inks = fullsOf(mi).map((p) => p.ink.areaMm2);
+      const inks = mi.fulls.map((p) => p.ink.areaMm2);
       if (!inks.length) continue;
       const lo = Math.min(...inks);
       const hi = Math.max(...inks);

@@ -2,13 +2,13 @@
 // more. Different glyphs (a bus and a bike) legitimately differ in ink, so only the same shape is compared.
 import type { ChartSvgMark } from '../../svg/readChartSvg';
 import type { FileCheck, Ink } from '../measureFile';
-import { blockingFinding, fullsOf, num, SAME_GLYPH_TOLERANCE } from './fileFinding';
+import { blockingFinding, num, SAME_GLYPH_TOLERANCE } from './fileFinding';
 import { sameShape } from './glyphShape';
 import { ISOTYPE_BASIS } from './glyphSizeVaries';
 
 /** Each mark's first full glyph, for comparing glyphs across marks. */
 export function firstGlyphs(m: Parameters<FileCheck['run']>[0]): { mark: ChartSvgMark; ink: Ink }[] {
-  return m.markInks.map((mi) => ({ mark: mi.mark, ink: fullsOf(mi)[0]?.ink })).filter((x): x is { mark: ChartSvgMark; ink: Ink } => !!x.ink);
+  return m.markInks.map((mi) => ({ mark: mi.mark, ink: mi.fulls[0]?.ink })).filter((x): x is { mark: ChartSvgMark; ink: Ink } => !!x.ink);
 }
 
 export const sameGlyphTwoSizes: FileCheck = {
