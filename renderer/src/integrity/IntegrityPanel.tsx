@@ -2,7 +2,7 @@
 // totals of groups of different size, unstated unit or source...), grouped by severity, each with its fix,
 // the source it rests on, and a button where the app can apply the fix; the adjustments applied, with their
 // footnote; and the findings set aside with the reason the designer gave.
-import { useRef, useState, type ReactElement } from 'react';
+import { useEffect, useRef, useState, type ReactElement } from 'react';
 import { CHART_RULES } from '../../../shared-core/integrity/rules/index';
 import { adjustmentFootnote } from '../../../shared-core/standardise';
 import type { Action } from '../editor/actions';
@@ -36,6 +36,12 @@ export function IntegrityPanel({ doc, findings, current, dispatch, onNotice }: I
   const [dialog, setDialog] = useState<OpenDialog | null>(null);
   const panel = useRef<HTMLElement>(null);
   const fallback = () => panel.current;
+  // A fix removes its own finding (and its button) once the chart is checked again; focus that was on it
+  // would fall to the page, so it is kept in the panel. Removing a focused element fires no blur.
+  const focusInside = useRef(false);
+  useEffect(() => {
+    if (focusInside.current && dialog === null && (document.activeElement === document.body || document.activeElement === null)) panel.current?.focus();
+  }, [findings, doc, dialog]);
   const close = () => setDialog(null);
   const all = findings ?? [];
   const { groups, openCount } = groupFindings(all);
@@ -78,7 +84,18 @@ export function IntegrityPanel({ doc, findings, current, dispatch, onNotice }: I
   };
 
   return (
-    <section className="panel integrity" aria-labelledby="integrity-title" id="integrity-panel" tabIndex={-1} ref={panel} data-testid="integrity-panel">
+    <section
+      className="panel integrity"
+      aria-labelledby="integrity-title"
+      id="integrity-panel"
+      tabIndex={-1}
+      ref={panel}
+      data-testid="integrity-panel"
+      onFocus={() => (focusInside.current = true)}
+      onBlur={(e) => {
+        if (!panel.current?.contains(e.relatedTarget as Node | null) && !(e.relatedTarget as HTMLElement | null)?.closest?.('.integrity-dialog')) focusInside.current = false;
+      }}
+    >
       <header className="panel-head">
         <h2 id="integrity-title">Integrity</h2>
         <span className="panel-sub">units, scale, context, labels</span>
