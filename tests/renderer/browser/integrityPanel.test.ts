@@ -257,6 +257,7 @@ describe.skipIf(!haveChromium)(`integrity panel in Chromium (skipped when ${CHRO
     const aside = page.getByTestId('integrity-set-aside');
     await aside.locator('summary').click();
     expect(await aside.getByTestId('set-aside-reason').textContent()).toContain(reason);
+    await aside.getByTestId('bring-back').scrollIntoViewIfNeeded();
     await shot(page, 'integrity-06-set-aside');
 
     host.nextSaveName = 'takings-aside-saved.json';
@@ -289,4 +290,40 @@ describe.skipIf(!haveChromium)(`integrity panel in Chromium (skipped when ${CHRO
     await settled(again.page);
     expect(await finding(again.page, 'time-uneven').count()).toBe(0);
   });
+
+  it('from the keyboard: Add the source through its dialog (Enter applies), Show the legend at once; each one undo step', async () => {
+    const { page, host } = await openPage();
+    const { source: _none, ...unsourced } = LOANS;
+    await openDocument(page, host, writeDoc('unsourced.json', { ...unsourced, layout: { legend: false } }));
+    const fix = finding(page, 'source-unstated').getByTestId('integrity-fix');
+    expect(await fix.textContent()).toBe('Add the source…');
+    await fix.focus();
+    await page.keyboard.press('Enter');
+    const dialog = page.getByTestId('source-dialog');
+    await dialog.waitFor();
+    expect(await page.evaluate(() => document.activeElement?.getAttribute('data-testid'))).toBe('source-dialog-text');
+    await page.keyboard.type('District library returns, invented data');
+    await page.keyboard.press('Enter');
+    await dialog.waitFor({ state: 'detached' });
+    expect(await page.locator('#chart-source').inputValue()).toBe('District library returns, invented data');
+    await settled(page);
+    expect(await finding(page, 'source-unstated').count()).toBe(0);
+
+    const legend = finding(page, 'unit-unstated').getByTestId('integrity-fix');
+    expect(await legend.textContent()).toBe('Show the legend');
+    await legend.focus();
+    await page.keyboard.press('Enter');
+    await settled(page);
+    expect(await finding(page, 'unit-unstated').count()).toBe(0);
+    expect(await page.getByLabel('Key', { exact: true }).isChecked()).toBe(true);
+
+    await page.getByTestId('undo').click();
+    await settled(page);
+    await finding(page, 'unit-unstated').waitFor();
+    await page.getByTestId('undo').click();
+    await settled(page);
+    await finding(page, 'source-unstated').waitFor();
+    expect(await page.locator('#chart-source').inputValue()).toBe('');
+  });
 });
+
