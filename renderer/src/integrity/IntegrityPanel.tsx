@@ -8,7 +8,7 @@ import { adjustmentFootnote } from '../../../shared-core/standardise';
 import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
 import { adjustDocument } from '../editor/integrityActions';
-import { toUiWords } from '../honesty/findingWords';
+import { ruleWords } from './ruleWords';
 import type { RuleFindingView } from '../render/renderTypes';
 import { canDismiss, groupFindings, priceFixFor, SEVERITY_HEADINGS, setAsideEntries, type DialogKind } from './integrityModel';
 import { PerCapitaDialog, PriceIndexDialog, TextDialog } from './IntegrityDialogs';
@@ -67,14 +67,14 @@ export function IntegrityPanel({ doc, findings, current, dispatch, onNotice }: I
   const fixButton = (f: RuleFindingView): ReactElement | null => {
     const plan = priceFixFor(f);
     if (!plan) return null;
-    const label = toUiWords(f.action?.label ?? (plan.kind === 'dialog' && plan.dialog === 'price-index' ? 'Adjust for prices…' : 'Fix'));
+    const label = ruleWords(f.action?.label ?? (plan.kind === 'dialog' && plan.dialog === 'price-index' ? 'Adjust for prices…' : 'Fix'));
     const dialogLabel = plan.kind === 'dialog' && !label.endsWith('…') ? `${label}…` : label;
     return (
       <button
         type="button"
         className="button fix-button"
         disabled={!current}
-        title={toUiWords(f.fix)}
+        title={ruleWords(f.fix)}
         data-testid="integrity-fix"
         onClick={() => (plan.kind === 'edit' ? applyEdit(plan.action) : setDialog({ kind: plan.dialog, ...(plan.suggestion ? { suggestion: plan.suggestion } : {}) }))}
       >
@@ -120,9 +120,9 @@ export function IntegrityPanel({ doc, findings, current, dispatch, onNotice }: I
                     {f.ruleName}
                     {f.category !== undefined && <span className="integrity-category"> · {f.category}</span>}
                   </p>
-                  <p className="integrity-message">{toUiWords(f.message)}</p>
+                  <p className="integrity-message">{ruleWords(f.message)}</p>
                   <p className="integrity-fix-text">
-                    <span className="integrity-label">Fix</span> {toUiWords(f.fix)}
+                    <span className="integrity-label">Fix</span> {ruleWords(f.fix)}
                   </p>
                   {f.basis && (
                     <p className="integrity-basis">
@@ -178,7 +178,7 @@ export function IntegrityPanel({ doc, findings, current, dispatch, onNotice }: I
                     {dismissal.category !== undefined && <span className="integrity-category"> · {dismissal.category}</span>}
                     {finding === null && <span className="muted"> (not found now)</span>}
                   </p>
-                  {finding && <p className="integrity-message muted">{toUiWords(finding.message)}</p>}
+                  {finding && <p className="integrity-message muted">{ruleWords(finding.message)}</p>}
                   <p className="integrity-reason" data-testid="set-aside-reason">
                     <span className="integrity-label">Reason</span> {dismissal.reason}
                   </p>

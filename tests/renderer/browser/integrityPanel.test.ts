@@ -291,7 +291,7 @@ describe.skipIf(!haveChromium)(`integrity panel in Chromium (skipped when ${CHRO
     expect(await finding(again.page, 'time-uneven').count()).toBe(0);
   });
 
-  it('from the keyboard: Add the source through its dialog (Enter applies), Show the legend at once; each one undo step', async () => {
+  it('from the keyboard: Add the source through its dialog (Enter applies), Show the key at once; each one undo step', async () => {
     const { page, host } = await openPage();
     const { source: _none, ...unsourced } = LOANS;
     await openDocument(page, host, writeDoc('unsourced.json', { ...unsourced, layout: { legend: false } }));
@@ -310,7 +310,7 @@ describe.skipIf(!haveChromium)(`integrity panel in Chromium (skipped when ${CHRO
     expect(await finding(page, 'source-unstated').count()).toBe(0);
 
     const legend = finding(page, 'unit-unstated').getByTestId('integrity-fix');
-    expect(await legend.textContent()).toBe('Show the legend');
+    expect(await legend.textContent()).toBe('Show the key');
     await legend.focus();
     await page.keyboard.press('Enter');
     await settled(page);
