@@ -293,6 +293,7 @@ describe.skipIf(!haveChromium)(`integrity panel in Chromium (skipped when ${CHRO
 
   it('from the keyboard: Add the source through its dialog (Enter applies), Show the key at once; each one undo step', async () => {
     const { page, host } = await openPage();
+    await shot(page, 'integrity-00-demo');
     const { source: _none, ...unsourced } = LOANS;
     await openDocument(page, host, writeDoc('unsourced.json', { ...unsourced, layout: { legend: false } }));
     const fix = finding(page, 'source-unstated').getByTestId('integrity-fix');
