@@ -6,7 +6,7 @@ import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
 import { adjustDocument } from '../editor/integrityActions';
 import { formatValue } from '../honesty/formatHonesty';
-import { formPeriods, initialPerCapitaForm, initialPriceForm, perCapitaAction, PER_CHOICES, priceAction, type PerCapitaForm, type PriceForm } from './integrityModel';
+import { columnNames, formPeriods, initialPerCapitaForm, withBaseColumn, initialPriceForm, perCapitaAction, PER_CHOICES, priceAction, type PerCapitaForm, type PriceForm } from './integrityModel';
 import { useDialogFocus } from './useDialogFocus';
 
 interface FrameProps {
@@ -77,6 +77,7 @@ export function PerCapitaDialog({ doc, suggestion, onApply, onClose, fallback }:
   const result = useMemo(() => perCapitaAction(doc, form), [doc, form]);
   const preview = useMemo(() => previewOf(doc, result.ok ? result.value : null), [doc, result]);
   const unitName = doc.encoding.unitName?.trim() || 'values';
+  const columnListId = useId();
   const set = (patch: Partial<PerCapitaForm>) => {
     setForm((f) => ({ ...f, ...patch }));
     setProblems([]);
@@ -87,7 +88,20 @@ export function PerCapitaDialog({ doc, suggestion, onApply, onClose, fallback }:
       <div className="integrity-form-grid">
         <label>
           <span>Column</span>
-          <input value={form.columnName} onChange={(e) => set({ columnName: e.target.value })} data-testid="per-capita-column" />
+          <input
+            value={form.columnName}
+            list={columnListId}
+            onChange={(e) => {
+              setForm((f) => withBaseColumn(doc, f, e.target.value));
+              setProblems([]);
+            }}
+            data-testid="per-capita-column"
+          />
+          <datalist id={columnListId}>
+            {columnNames(doc).map((c) => (
+              <option key={c} value={c} />
+            ))}
+          </datalist>
         </label>
         <label>
           <span>The base counts</span>

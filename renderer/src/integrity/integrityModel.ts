@@ -132,6 +132,23 @@ export function initialPerCapitaForm(doc: EditorDocument, suggestion?: Record<st
 
 export type FormResult<T> = { ok: true; value: T } | { ok: false; problems: string[] };
 
+/** Names of the document's extra columns, for the dialog's choice of base column. */
+export function columnNames(doc: EditorDocument): string[] {
+  return Object.keys(doc.carried?.standardise?.columns ?? {});
+}
+
+/** The form with another base column: an existing column's figures and unit fill the rows; a new name keeps what was typed. */
+export function withBaseColumn(doc: EditorDocument, form: PerCapitaForm, columnName: string): PerCapitaForm {
+  const column = doc.carried?.standardise?.columns?.[columnName.trim()];
+  if (!column) return { ...form, columnName };
+  const baseTexts: Record<string, string> = {};
+  for (const row of doc.rows) {
+    const cell = column.values[row.label.trim()];
+    baseTexts[row.id] = typeof cell === 'number' ? formatNumber(cell) : typeof cell === 'string' ? cell : '';
+  }
+  return { ...form, columnName, baseTexts, baseName: column.unitName ?? form.baseName };
+}
+
 /** The apply-adjustment action a per-capita form asks for, or every problem with it (each row named). */
 export function perCapitaAction(doc: EditorDocument, form: PerCapitaForm): FormResult<Extract<Action, { type: 'apply-adjustment' }>> {
   const problems: string[] = [];

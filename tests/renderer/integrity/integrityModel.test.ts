@@ -9,6 +9,7 @@ import {
   groupFindings,
   initialPerCapitaForm,
   initialPriceForm,
+  withBaseColumn,
   perCapitaAction,
   planFix,
   priceAction,
@@ -150,6 +151,25 @@ describe('the per-capita dialog form', () => {
     expect(out.ok && out.value.step).toEqual({ kind: 'per-capita', column: 'households', per: 10000, baseName: 'households' });
     const adjusted = out.ok ? adjustDocument(doc, out.value) : null;
     expect(adjusted?.ok && adjusted.document.rows.map((r) => r.valueText)).toEqual(['108', '70']);
+  });
+
+  it('choosing another column fills its figures and unit; a new name keeps what was typed', () => {
+    const doc = fromChartDocument({
+      format: 'tallyglyph.chart/1',
+      data: [
+        { label: 'Northside', value: 54 },
+        { label: 'Riverside', value: 91 },
+      ],
+      encoding: { mode: 'repeat', glyph: 'book' },
+      page: { width: 180, height: 120, unit: 'mm' },
+      standardise: { columns: { households: { unitName: 'households', values: { Northside: 5000, Riverside: 13000 } }, population: { unitName: 'residents', values: { Northside: 12000, Riverside: 26000 } } } },
+    });
+    const start = initialPerCapitaForm(doc);
+    expect(start.columnName).toBe('households');
+    const chosen = withBaseColumn(doc, start, 'population');
+    expect([chosen.baseName, chosen.baseTexts]).toEqual(['residents', { r1: '12000', r2: '26000' }]);
+    const typed = withBaseColumn(doc, chosen, 'pupils');
+    expect([typed.columnName, typed.baseName, typed.baseTexts]).toEqual(['pupils', 'residents', { r1: '12000', r2: '26000' }]);
   });
 
   it('lists every row without a usable base figure and a bad rate base', () => {
