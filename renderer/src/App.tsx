@@ -27,6 +27,7 @@ import { RowPickContext, type RowPick } from './preview/rowPick';
 import { AuditWorkspace } from './audit/AuditWorkspace';
 import { OwnGlyphsPanel } from './glyphs/OwnGlyphsPanel';
 import { setOwnGlyphs } from './glyphs/ownGlyphImages';
+import { IntegrityPanel } from './integrity/IntegrityPanel';
 
 interface FileInfo {
   documentId: string | null;
@@ -610,9 +611,12 @@ export function App({ host }: { host: HostApi }): ReactElement {
           onClearHighlight={() => setPickedLabel(null)}
         />
 
-        <RowPickContext.Provider value={rowPick}>
-          <HonestyPanel state={honestyState} ppi={ppi} fixes={oneClickFixes} />
-        </RowPickContext.Provider>
+        <div className="side-column">
+          <RowPickContext.Provider value={rowPick}>
+            <HonestyPanel state={honestyState} ppi={ppi} fixes={oneClickFixes} />
+          </RowPickContext.Provider>
+          <IntegrityPanel doc={doc} findings={outcome?.kind === 'checked' ? outcome.rules ?? null : null} current={current && !render.busy} dispatch={dispatch} onNotice={say} />
+        </div>
       </main>
       <AuditWorkspace host={host} onNotice={say} hidden={workspace !== 'audit'} />
 

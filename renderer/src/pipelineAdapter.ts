@@ -4,11 +4,14 @@
 
 import { parseChart } from '../../shared-core/document';
 import { isTallyError } from '../../shared-core/errors';
-import type { VerifyReport } from '../../shared-core/integrity';
+import type { IntegrityFinding, VerifyReport } from '../../shared-core/integrity';
+import { CHART_RULES, checkChart } from '../../shared-core/integrity/rules/index';
+import type { ChartSpec } from '../../shared-core/document';
 import { layoutChart } from '../../shared-core/layout';
+import type { Scene } from '../../shared-core/scene';
 import { renderChart } from '../../shared-core/pipeline';
 import { writeSvg } from '../../shared-core/svg';
-import type { FixOffers, HonestyRow, HonestyView, RenderOutcome } from './render/renderTypes';
+import type { FixOffers, HonestyRow, HonestyView, RenderOutcome, RuleFindingView } from './render/renderTypes';
 
 function honestyOf(report: VerifyReport): HonestyView {
   const pairs = new Map(report.lieFactor.pairs.map((p) => [p.label, p]));
@@ -58,6 +61,35 @@ function honestyOf(report: VerifyReport): HonestyView {
   };
 }
 
+/** The rule's short name for a finding's code (a sub-code starts with its rule's code). */
+function ruleNameOf(code: string): string {
+  const rule = CHART_RULES.find((r) => code === r.code || code.startsWith(`${r.code}-`));
+  return rule?.name ?? code;
+}
+
+function ruleFindingView(f: IntegrityFinding, dismissedReason?: string): RuleFindingView {
+  return {
+    code: f.code,
+    severity: f.severity,
+    message: f.message,
+    fix: f.fix,
+    ruleName: ruleNameOf(f.code),
+    ...(f.category !== undefined ? { category: f.category } : {}),
+    ...(f.basis !== undefined ? { basis: f.basis } : {}),
+    ...(f.action ? { action: { kind: f.action.kind, label: f.action.label, ...(f.action.payload ? { payload: JSON.parse(JSON.stringify(f.action.payload)) as Record<string, unknown> } : {}) } } : {}),
+    ...(dismissedReason !== undefined ? { dismissedReason } : {}),
+  };
+}
+
+/**
+ * The chart rules on the very spec and scene that were verified: open findings first (as checkChart orders
+ * them), then the dismissed ones marked with their reason. checkChart reports a failing rule as a finding.
+ */
+export function ruleFindingsOf(spec: ChartSpec, scene: Scene): RuleFindingView[] {
+  const report = checkChart(spec, scene);
+  return [...report.findings.map((f) => ruleFindingView(f)), ...report.dismissed.map((d) => ruleFindingView(d.finding, d.reason))];
+}
+
 function isVerifyReport(value: unknown): value is VerifyReport {
   return typeof value === 'object' && value !== null && 'lieFactor' in value && 'marks' in value && 'pass' in value;
 }
@@ -69,11 +101,12 @@ function isVerifyReport(value: unknown): value is VerifyReport {
 export function renderDocument(doc: unknown): RenderOutcome {
   try {
     const result = renderChart(doc);
-    return { kind: 'checked', svg: result.svg, honesty: honestyOf(result.report), unit: unitOf(result.scene) };
+    return { kind: 'checked', svg: result.svg, honesty: honestyOf(result.report), unit: unitOf(result.scene), rules: ruleFindingsOf(result.spec, result.scene) };
   } catch (e) {
     if (isTallyError(e) && e.code === 'gate-refused' && isVerifyReport(e.details)) {
       let svg: string | null = null;
       let unit: ReturnType<typeof unitOf> = null;
+      let rules: RuleFindingView[] | undefined;
       try {
         // The refusal carries the measurements but not the file; write it again for the preview.
         const spec = parseChart(doc);
@@ -81,12 +114,13 @@ export function renderDocument(doc: unknown): RenderOutcome {
         // The same writer options as renderChart, so the preview is the file export would write.
         svg = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
         unit = unitOf(scene);
+        rules = ruleFindingsOf(spec, scene);
       } catch {
         // Then there is nothing to show, only the report.
       }
       const honesty = honestyOf(e.details);
       const offers = fixOffers(doc, honesty, unit);
-      return { kind: 'checked', svg, honesty, unit, ...(offers ? { offers } : {}) };
+      return { kind: 'checked', svg, honesty, unit, ...(offers ? { offers } : {}), ...(rules ? { rules } : {}) };
     }
     if (isTallyError(e) && (e.code === 'document-invalid' || e.code === 'document-version')) {
       const problems = Array.isArray(e.details) ? (e.details as { path: string; message: string }[]).map((p) => ({ path: String(p.path), message: String(p.message) })) : [];

@@ -58,3 +58,47 @@ describe('one-click offers for a refused chart', () => {
     expect(outcome.kind === 'checked' && outcome.offers).toBeFalsy();
   });
 });
+
+describe('the chart rules in the outcome', () => {
+  // Invented: takings in the dollars of each year, with a gap between 1982 and 2000.
+  const takings = {
+    format: 'tallyglyph.chart/1',
+    data: [
+      { label: '1982', value: 10000 },
+      { label: '2000', value: 20000 },
+      { label: '2005', value: 25000 },
+    ],
+    encoding: { mode: 'repeat', glyph: 'coin', unitName: 'dollars' },
+    page: { width: 180, height: 120, unit: 'mm' },
+  };
+
+  it('runs on the spec and scene that were verified, with rule names and bases, and marks a dismissed finding instead of dropping it', () => {
+    const outcome = renderDocument({ ...takings, dismissed: [{ code: 'time-uneven', reason: 'No festival in between.' }] });
+    expect(outcome.kind).toBe('checked');
+    if (outcome.kind !== 'checked') return;
+    const rules = outcome.rules ?? [];
+    const money = rules.find((r) => r.code === 'money-nominal');
+    expect(money?.ruleName).toBe('Money over time not adjusted for prices');
+    expect(money?.basis).toMatch(/Moore/);
+    expect(money?.dismissedReason).toBeUndefined();
+    // No source in the document: the rule says so and offers its fix.
+    expect(rules.find((r) => r.code === 'source-unstated')?.action?.kind).toBe('set-source');
+    const uneven = rules.find((r) => r.code === 'time-uneven');
+    expect(uneven?.dismissedReason).toBe('No festival in between.');
+    // Open findings first, set-aside ones after them.
+    expect(rules.findIndex((r) => r.dismissedReason !== undefined)).toBe(rules.length - 1);
+    // Survives postMessage: plain data only.
+    expect(structuredClone(rules)).toEqual(rules);
+  });
+
+  it('comes with a refused chart too, from the preview that was written again', () => {
+    const base = DEMO_CHARTS[0].document;
+    const outcome = renderDocument({ ...base, source: undefined, encoding: { ...base.encoding, unit: 100, rounding: 'whole' as const } });
+    expect(outcome.kind === 'checked' && outcome.honesty.pass).toBe(false);
+    if (outcome.kind !== 'checked') return;
+    const codes = (outcome.rules ?? []).map((r) => r.code);
+    expect(codes).toContain('source-unstated');
+    // Whole glyphs of 100 rides move 135 rides by more than 5% (the rounding rule's limit).
+    expect(codes).toContain('rounding-error');
+  });
+});

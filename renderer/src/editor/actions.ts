@@ -3,6 +3,7 @@
 
 import { PAGE_UNIT_MM, type OwnGlyph, type Arrangement, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
 import type { EditorDocument, EditorRow } from './editorDocument';
+import { INTEGRITY_ACTION_NAMES, isIntegrityAction, performIntegrity, type IntegrityAction } from './integrityActions';
 import { parseTable } from './parseTable';
 
 export type Action =
@@ -36,7 +37,9 @@ export type Action =
   /** A glyph of one's own kept in the document under `name` ("own:…"), and used as the chart's glyph. */
   | { type: 'add-own-glyph'; name: string; glyph: OwnGlyph }
   /** Removes an own glyph; rows and the chart fall back to the bundled square where they used it. */
-  | { type: 'remove-own-glyph'; name: string };
+  | { type: 'remove-own-glyph'; name: string }
+  /** Adjustments and findings set aside, from the integrity panel (integrityActions.ts). */
+  | IntegrityAction;
 
 export type ActionType = Action['type'];
 
@@ -67,6 +70,7 @@ export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze(
   'set-show': 'label setting',
   'add-own-glyph': 'glyph import',
   'remove-own-glyph': 'glyph removal',
+  ...INTEGRITY_ACTION_NAMES,
 });
 
 const MAX_ROWS = 10_000;
@@ -109,6 +113,7 @@ function sameColors(a: readonly string[] | undefined, b: readonly string[] | und
  * table text is kept exactly as typed (toChartDocument reports its problems).
  */
 export function perform(doc: EditorDocument, action: Action): EditorDocument {
+  if (isIntegrityAction(action)) return performIntegrity(doc, action);
   switch (action.type) {
     case 'set-title':
       return action.title === doc.title ? doc : { ...doc, title: action.title };

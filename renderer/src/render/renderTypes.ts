@@ -46,9 +46,25 @@ export interface HonestyView {
   smallestGlyph: { label: string; inkMm2: number } | null;
 }
 
+/**
+ * One finding of the chart rules (shared-core/integrity/rules), run on the same spec and scene that were
+ * verified. A finding the designer set aside is kept, marked with the reason, never dropped.
+ */
+export interface RuleFindingView extends HonestyFinding {
+  /** The rule's short name ("Money over time not adjusted for prices"). */
+  ruleName: string;
+  /** The source the rule rests on, or "common practice, no source". */
+  basis?: string;
+  /** Present when a dismissal in the document covers this finding: the reason it was set aside. */
+  dismissedReason?: string;
+}
+
 export type RenderOutcome =
-  /** Laid out, written and re-measured. svg is null only when a refusal came without the file. */
-  | { kind: 'checked'; svg: string | null; honesty: HonestyView; unit: { value: number; chosen: boolean } | null; offers?: FixOffers }
+  /**
+   * Laid out, written and re-measured. svg is null only when a refusal came without the file. rules: the
+   * chart rules' findings, open ones first (absent when the chart could not be laid out for them).
+   */
+  | { kind: 'checked'; svg: string | null; honesty: HonestyView; unit: { value: number; chosen: boolean } | null; offers?: FixOffers; rules?: RuleFindingView[] }
   /** The document itself is wrong: each problem names its field path (data[2].value...). */
   | { kind: 'invalid'; message: string; problems: { path: string; message: string }[] }
   | { kind: 'failed'; code: string; message: string };
