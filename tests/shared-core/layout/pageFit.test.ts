@@ -141,3 +141,58 @@ describe('composition uses the page', () => {
     }
   }
 });
+
+describe('fill and scale glyphs use the content box', () => {
+  function blockBox(scene: Scene) {
+    const block = drawnBoxes(scene).filter((d) => !/^(title|source) text/.test(d.what)).map((d) => d.box);
+    const minX = Math.min(...block.map((b) => b.x));
+    const minY = Math.min(...block.map((b) => b.y));
+    return { width: Math.max(...block.map((b) => b.x + b.width)) - minX, height: Math.max(...block.map((b) => b.y + b.height)) - minY };
+  }
+
+  // Common practice, no source: a chart with few categories is drawn large enough that its block (marks, labels and
+  // key) covers at least half of the content box. Fill glyphs used to stop at 60 mm, covering under a third of an
+  // A4 portrait page.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
+    for (const modeName of ['fill', 'scale']) {
+      it(`${modeName} with 3 categories on ${pageName} covers at least half of the content box`, { timeout: 60_000 }, () => {
+        const spec = parseChart(chart(MODES[modeName], page, 3));
+        const scene = layoutChart(spec);
+        const block = blockBox(scene);
+        const m = spec.layout.margins;
+        const room = { width: spec.page.widthMm - m.left - m.right, height: spec.page.heightMm - m.top - m.bottom };
+        expect((block.width * block.height) / (room.width * room.height)).toBeGreaterThan(0.5);
+        expect(pageFitProblems(scene, spec)).toEqual([]);
+      });
+    }
+  }
+
+  it('fill glyphs of 10 categories on A4 portrait stand on one column grid, the short last row centred on it', { timeout: 60_000 }, () => {
+    const spec = parseChart(chart(MODES.fill, PAGES['A4 portrait'], 10));
+    const scene = layoutChart(spec);
+    const boxes = scene.marks.map((mk) => drawnBoxes({ ...scene, marks: [mk], texts: [], lines: [], legendKeys: [] }).map((d) => d.box));
+    const glyph = boxes.map((parts) => ({
+      x: Math.min(...parts.map((b) => b.x)),
+      right: Math.max(...parts.map((b) => b.x + b.width)),
+      top: Math.min(...parts.map((b) => b.y)),
+      bottom: Math.max(...parts.map((b) => b.y + b.height)),
+    }));
+    const centres = glyph.map((g) => (g.x + g.right) / 2);
+    const rowsByBottom = new Map<string, number[]>();
+    glyph.forEach((g, i) => rowsByBottom.set(g.bottom.toFixed(3), [...(rowsByBottom.get(g.bottom.toFixed(3)) ?? []), i]));
+    const rows = [...rowsByBottom.values()];
+    expect(rows.length).toBeGreaterThan(1);
+    // Every centre of a later row sits on a centre of the first (full) row: one grid, a short row centred on it.
+    const firstRow = rows[0].map((i) => centres[i]);
+    for (const row of rows.slice(1)) for (const i of row) expect(Math.min(...firstRow.map((c) => Math.abs(c - centres[i])))).toBeLessThan(1e-6);
+  });
+
+  it('fill glyphs of 3 categories on A4 portrait are drawn larger than the old 60 mm cap', { timeout: 60_000 }, () => {
+    const scene = layoutChart(parseChart(chart(MODES.fill, PAGES['A4 portrait'], 3)));
+    const heights = scene.marks.map((mk) => {
+      const parts = drawnBoxes({ ...scene, marks: [mk], texts: [], lines: [], legendKeys: [] }).map((d) => d.box);
+      return Math.max(...parts.map((b) => b.y + b.height)) - Math.min(...parts.map((b) => b.y));
+    });
+    expect(Math.min(...heights)).toBeGreaterThan(60);
+  });
+});
