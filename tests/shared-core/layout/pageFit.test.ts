@@ -25,14 +25,17 @@ const MODES: Record<string, ChartDocument['encoding']> = {
   stack: { mode: 'stack', glyph: 'coffee', unitName: 'cups' },
   scale: { mode: 'scale', glyph: 'tree', unitName: 'trees' },
   fill: { mode: 'fill', glyph: 'drop', unitName: 'litres' },
+  'scale, a glyph per row': { mode: 'scale', glyph: 'tree', unitName: 'things' },
 };
+/** Bundled glyphs of many shapes (wide, tall, round), one per row where a mode's name says so: every one is keyed. */
+const ROW_GLYPHS = ['tree', 'house', 'bike', 'car', 'bus', 'heart', 'person', 'drop', 'coffee', 'star', 'leaf', 'fish', 'sun', 'book', 'plane', 'cat'];
 
-function chart(encoding: ChartDocument['encoding'], page: { width: number; height: number }, n: number): ChartDocument {
+function chart(encoding: ChartDocument['encoding'], page: { width: number; height: number }, n: number, glyphPerRow = encoding === MODES['scale, a glyph per row']): ChartDocument {
   return {
     format: 'tallyglyph.chart/1',
     title: `Rides per station (${n})`,
     source: 'Invented demo data',
-    data: LABELS.slice(0, n).map((label, i) => ({ label, value: VALUES[i] })),
+    data: LABELS.slice(0, n).map((label, i) => ({ label, value: VALUES[i], ...(glyphPerRow ? { glyph: ROW_GLYPHS[i] } : {}) })),
     encoding,
     page: { ...page, unit: 'mm' },
   };
@@ -194,5 +197,50 @@ describe('fill and scale glyphs use the content box', () => {
       return Math.max(...parts.map((b) => b.y + b.height)) - Math.min(...parts.map((b) => b.y));
     });
     expect(Math.min(...heights)).toBeGreaterThan(60);
+  });
+});
+
+describe('the scale key with a glyph per row', () => {
+  // 16 categories, each its own glyph: 17 reference glyphs (the first glyph has two) that cannot stand in one line.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
+    it(`wraps onto a grid inside the content box on ${pageName}, one key per glyph drawn, values centred under their glyphs`, { timeout: 60_000 }, () => {
+      const spec = parseChart(chart(MODES['scale, a glyph per row'], page, 16));
+      const scene = layoutChart(spec);
+      expect(pageFitProblems(scene, spec)).toEqual([]);
+      expect(new Set(scene.legendKeys.map((k) => k.glyph))).toEqual(new Set(ROW_GLYPHS));
+      const keyBoxes = drawnBoxes(scene).filter((d) => d.what.startsWith('legend key')).map((d) => d.box);
+      const bottoms = [...new Set(keyBoxes.map((b) => (b.y + b.height).toFixed(3)))];
+      // More than one row of key glyphs, each row standing on one baseline.
+      expect(bottoms.length).toBeGreaterThan(1);
+      // Key columns share one pitch: the centre of every key glyph is one of the first row's centres.
+      const firstBottom = Math.min(...bottoms.map(Number));
+      const centres = keyBoxes.map((b) => b.x + b.width / 2);
+      const firstRow = keyBoxes.map((b, i) => ((b.y + b.height).toFixed(3) === firstBottom.toFixed(3) ? centres[i] : NaN)).filter((c) => !Number.isNaN(c));
+      for (const c of centres) expect(Math.min(...firstRow.map((f) => Math.abs(f - c)))).toBeLessThan(1e-6);
+      // Each value text is centred under a key glyph.
+      const valueTexts = scene.texts.filter((t) => t.role === 'legend' && /things$/.test(t.text) && t.bboxMm);
+      expect(valueTexts.length).toBe(keyBoxes.length);
+      for (const t of valueTexts) {
+        const mid = t.bboxMm!.x + t.bboxMm!.width / 2;
+        expect(Math.min(...centres.map((c) => Math.abs(c - mid)))).toBeLessThan(0.3);
+      }
+    });
+  }
+
+  it('refuses with layout-no-room, naming the key, when even one key column is wider than the content box', () => {
+    // 60 mm of room: three short-labelled glyphs fit, but a key value with a long unit name ("10 litres of ...") cannot.
+    const doc: ChartDocument = {
+      format: 'tallyglyph.chart/1',
+      data: [{ label: 'A', value: 40 }, { label: 'B', value: 20 }, { label: 'C', value: 10 }],
+      encoding: { mode: 'scale', glyph: 'drop', unitName: 'litres of rainwater collected from the roof each week' },
+      page: { width: 80, height: 150, unit: 'mm' },
+    };
+    const e = caught(() => layoutChart(parseChart(doc)));
+    expect(e.code).toBe('layout-no-room');
+    expect(e.message).toMatch(/scale key/);
+    expect(e.message).toMatch(/bigger page/);
+    // Without the key the same marks fit: the refusal is the key's.
+    const spec = parseChart({ ...doc, layout: { legend: false } });
+    expect(pageFitProblems(layoutChart(spec), spec)).toEqual([]);
   });
 });
