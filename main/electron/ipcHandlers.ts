@@ -90,6 +90,8 @@ export interface HandlerDeps {
   now?: () => number;
   /** An audit sheet SVG to PNG bytes with its resolution recorded; default: sheetPng. */
   buildSheetPng?: (svg: string, ppi: number) => Uint8Array;
+  /** Documents the operating system asked to open (openRequests.ts); absent: none ever arrive. */
+  openRequests?: { take(): string[] };
 }
 
 export type HostHandler = (payload: unknown) => Promise<HostResult<unknown>>;
@@ -380,6 +382,18 @@ export function createHostHandlers(deps: HandlerDeps): HostHandlers {
 
   return {
     getCapabilities: guarded('getCapabilities', async () => ELECTRON_CAPABILITIES),
+
+    // Each waiting document gets an id openChart accepts, so the UI opens it through its usual Open (with the
+    // unsaved-changes question); all go on the recent list, so those after the first stay one click away.
+    takeOpenRequests: guarded('takeOpenRequests', async () => {
+      const taken = deps.openRequests?.take() ?? [];
+      const out: { documentId: string; name: string }[] = [];
+      for (const filePath of taken.slice(0, HOST_LIMITS.maxOpenRequests)) {
+        out.push({ documentId: rememberPath(filePath), name: displayName(filePath) });
+        await recent.remember(filePath);
+      }
+      return out;
+    }),
 
     openChart: guarded('openChart', async (request) => {
       let filePath: string | null;

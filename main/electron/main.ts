@@ -4,8 +4,9 @@
 import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { app, BrowserWindow, dialog, ipcMain, Menu, session, shell, type MenuItemConstructorOptions } from 'electron';
-import { HOST_EVENT_MENU_COMMAND } from '../../shared-core/host';
+import { HOST_EVENT_MENU_COMMAND, HOST_EVENT_OPEN_REQUEST } from '../../shared-core/host';
 import { createHostHandlers, exportRefusal, FILE_FILTERS, menuTemplate, OPEN_FILTERS, registerHostHandlers, trustedUrlChecker, verifiedPng, type DialogPort, type MenuSpec } from './ipcHandlers';
+import { createOpenRequestQueue, leadingArgvEntries } from './openRequests';
 
 const here = path.dirname(fileURLToPath(import.meta.url));
 const rendererDir = path.join(here, '../renderer');
@@ -13,6 +14,27 @@ const preloadPath = path.join(here, '../preload/index.cjs');
 const devServerUrl = process.env.ELECTRON_RENDERER_URL ?? null;
 
 let mainWindow: BrowserWindow | null = null;
+
+// Documents the OS asks us to open wait here until the window takes them (openRequests.ts holds the logic).
+const openRequests = createOpenRequestQueue(() => mainWindow?.webContents.send(HOST_EVENT_OPEN_REQUEST));
+const leadingEntries = leadingArgvEntries(process.defaultApp);
+// One instance: a document opened while the app runs (Windows, Linux) arrives as the second instance's argv.
+const isPrimaryInstance = app.requestSingleInstanceLock();
+if (!isPrimaryInstance) app.quit();
+app.on('second-instance', (_event, argv, workingDirectory) => {
+  openRequests.addArgv(argv, { cwd: workingDirectory, leadingEntries });
+  if (mainWindow) {
+    if (mainWindow.isMinimized()) mainWindow.restore();
+    mainWindow.focus();
+  } else if (app.isReady()) createWindow();
+});
+openRequests.addArgv(process.argv, { cwd: process.cwd(), leadingEntries });
+// macOS sends double-clicked documents as open-file, at launch even before 'ready'.
+app.on('open-file', (event, filePath) => {
+  event.preventDefault();
+  openRequests.add(filePath);
+  if (app.isReady() && !mainWindow) createWindow();
+});
 
 function electronDialogs(): DialogPort {
   return {
@@ -61,8 +83,10 @@ function createWindow(): void {
     },
   });
   mainWindow.once('ready-to-show', () => mainWindow?.show());
+  mainWindow.webContents.on('did-finish-load', () => openRequests.windowReady());
   mainWindow.on('closed', () => {
     mainWindow = null;
+    openRequests.windowGone();
   });
   if (devServerUrl) void mainWindow.loadURL(devServerUrl);
   else void mainWindow.loadFile(path.join(rendererDir, 'index.html'));
@@ -106,6 +130,7 @@ app.on('web-contents-created', (_event, contents) => {
 });
 
 app.whenReady().then(() => {
+  if (!isPrimaryInstance) return;
   // The editor needs no camera, microphone, notifications, geolocation or anything else: refuse all.
   session.defaultSession.setPermissionRequestHandler((_contents, _permission, callback) => callback(false));
   session.defaultSession.setPermissionCheckHandler(() => false);
@@ -114,6 +139,7 @@ app.whenReady().then(() => {
     recentFile: path.join(app.getPath('userData'), 'recent.json'),
     checkExport: exportRefusal,
     buildPng: verifiedPng,
+    openRequests,
   });
   registerHostHandlers(ipcMain, handlers, trustedUrlChecker({ rendererDir, devServerUrl }));
   Menu.setApplicationMenu(buildMenu(menuTemplate({ isMac: process.platform === 'darwin', devTools: !app.isPackaged })));

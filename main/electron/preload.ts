@@ -6,6 +6,7 @@ import { contextBridge, ipcRenderer } from 'electron';
 import {
   HOST_CHANNELS,
   HOST_EVENT_MENU_COMMAND,
+  HOST_EVENT_OPEN_REQUEST,
   HOST_GLOBAL_NAME,
   failureFromError,
   parseHostRequest,
@@ -16,6 +17,7 @@ import {
   type HostResult,
   type HostValue,
   type MenuCommand,
+  type OpenRequest,
 } from '../../shared-core/host';
 
 async function call<M extends HostMethod>(method: M, request: unknown): Promise<HostResult<HostValue<M>>> {
@@ -53,6 +55,20 @@ const host: HostApi = {
     ipcRenderer.on(HOST_EVENT_MENU_COMMAND, wrapped);
     return () => {
       ipcRenderer.removeListener(HOST_EVENT_MENU_COMMAND, wrapped);
+    };
+  },
+  onOpenRequest(listener: (requests: OpenRequest[]) => void) {
+    // The event only says "documents are waiting"; they are taken through the checked channel, once on
+    // subscribing too, so a document passed while the page was still loading is not missed.
+    const drain = async () => {
+      const taken = await call('takeOpenRequests', {});
+      if (taken.ok && taken.value.length > 0) listener(taken.value);
+    };
+    const wrapped = () => void drain();
+    ipcRenderer.on(HOST_EVENT_OPEN_REQUEST, wrapped);
+    void drain();
+    return () => {
+      ipcRenderer.removeListener(HOST_EVENT_OPEN_REQUEST, wrapped);
     };
   },
 };

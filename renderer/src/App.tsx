@@ -363,6 +363,14 @@ export function App({ host }: { host: HostApi }): ReactElement {
 
   useEffect(() => host.onMenuCommand((c) => commandsRef.current[c]()), [host]);
 
+  // Documents the operating system asks to open (desktop app): the first opens as Open would; the host has put
+  // every one on the Recent list, so the others stay one click away.
+  const openRef = useRef(open);
+  openRef.current = open;
+  useEffect(() => host.onOpenRequest?.((requests) => {
+    if (requests.length > 0) void openRef.current(requests[0].documentId);
+  }), [host]);
+
   useEffect(() => {
     if (!caps || caps.menuShortcuts) return;
     const onKey = (e: KeyboardEvent) => {

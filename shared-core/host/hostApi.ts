@@ -20,6 +20,8 @@ export const HOST_LIMITS = Object.freeze({
   minPpi: 36,
   maxPpi: 1200,
   maxRecent: 12,
+  /** Documents from the operating system waiting at once (a folder dropped on the app's icon keeps the first). */
+  maxOpenRequests: 16,
   /** A supplied graphic, glyph or font file read for the app (the audit's own file size limit). */
   maxSuppliedBytes: 16 * 1024 * 1024,
 });
@@ -38,6 +40,8 @@ export const HOST_CHANNELS = Object.freeze({
   clearRecovery: 'tallyglyph:clear-recovery',
   openSupplied: 'tallyglyph:open-supplied',
   exportSheet: 'tallyglyph:export-sheet',
+  /** Chart documents the operating system asked to open (double-click, "Open with"), waiting for the window. */
+  takeOpenRequests: 'tallyglyph:take-open-requests',
 } as const);
 
 export type HostMethod = keyof typeof HOST_CHANNELS;
@@ -45,6 +49,9 @@ export type HostChannel = (typeof HOST_CHANNELS)[HostMethod];
 
 /** The one event channel from host to UI: a menu item or accelerator was used. */
 export const HOST_EVENT_MENU_COMMAND = 'tallyglyph:menu-command';
+
+/** Host to UI: documents from the operating system are waiting; the UI takes them with takeOpenRequests. */
+export const HOST_EVENT_OPEN_REQUEST = 'tallyglyph:open-request';
 
 export const MENU_COMMANDS = ['open', 'save', 'save-as', 'export-svg', 'export-png', 'undo', 'redo', 'new', 'export-pdf', 'copy-svg'] as const;
 export type MenuCommand = (typeof MENU_COMMANDS)[number];
@@ -93,6 +100,9 @@ const openedChartSchema = z.strictObject({
   name: fileName,
   text: z.string().max(HOST_LIMITS.maxDocumentChars),
 });
+
+/** A document the OS asked to open: an id that openChart accepts, and its name; never its path. */
+const openRequestSchema = z.strictObject({ documentId, name: fileName });
 
 const savedChartSchema = z.strictObject({ documentId: documentId.nullable(), name: fileName });
 
@@ -163,6 +173,7 @@ export const hostRequestSchemas = {
     format: z.enum(['svg', 'png']),
     ppi: z.number().min(HOST_LIMITS.minPpi).max(HOST_LIMITS.maxPpi),
   }),
+  takeOpenRequests: z.strictObject({}),
 } as const;
 
 /** Schemas of each call's value on success; null means the user cancelled a dialog. */
@@ -180,6 +191,8 @@ export const hostValueSchemas = {
   clearRecovery: z.boolean(),
   openSupplied: suppliedFileSchema.nullable(),
   exportSheet: exportedFileSchema.nullable(),
+  /** Oldest first; empty when none is waiting. */
+  takeOpenRequests: z.array(openRequestSchema).max(HOST_LIMITS.maxOpenRequests),
 } as const;
 
 const hostErrorSchema = z.strictObject({ code: z.string().min(1).max(64), message: z.string().min(1).max(2000) });
@@ -194,6 +207,7 @@ export type RecentChart = z.infer<typeof recentChartSchema>;
 export type RecoveryCopy = z.infer<typeof recoveryCopySchema>;
 export type HostError = z.infer<typeof hostErrorSchema>;
 export type SuppliedFileBytes = z.infer<typeof suppliedFileSchema>;
+export type OpenRequest = z.infer<typeof openRequestSchema>;
 
 export type HostRequest<M extends HostMethod> = z.infer<(typeof hostRequestSchemas)[M]>;
 export type HostValue<M extends HostMethod> = z.infer<(typeof hostValueSchemas)[M]>;
@@ -220,6 +234,13 @@ export interface HostApi {
   exportSheet(request: HostRequest<'exportSheet'>): Promise<HostResult<ExportedFile | null>>;
   /** Listens for menu commands; returns the function that stops listening. */
   onMenuCommand(listener: (command: MenuCommand) => void): () => void;
+  /**
+   * Listens for documents the operating system asks the app to open, including any passed before the UI
+   * was listening (they are delivered on subscribing); each batch arrives oldest first. The listener opens
+   * them through openChart({ documentId }), so an unsaved chart is asked about as with Open. Only a desktop
+   * host has an operating system to hear from, so a host may leave this out.
+   */
+  onOpenRequest?(listener: (requests: OpenRequest[]) => void): () => void;
 }
 
 // ---------------------------------------------------------------------------------------------

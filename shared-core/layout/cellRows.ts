@@ -117,9 +117,11 @@ export function planCellRows(items: readonly CellItem[], box: BoxMm, opts: CellR
   const centreXMm = new Array<number>(n).fill(0);
   const baselineYMm = new Array<number>(n).fill(0);
   // Use the page: columns of equal pitch across the whole width when every cell fits one (so the items
-  // of every row line up), else each row's spare width spread between its cells; spare height opens
-  // the row gaps up to a row's height each and centres what is left.
-  const pitchMm = box.width / Math.max(1, columns);
+  // of every row line up, a short last row centred on the same columns), else each row's spare width
+  // spread between its cells; spare height opens the row gaps up to a row's height each and centres
+  // what is left. A pitch of (width + gap) / columns leaves a cell width of pitch - gap, exactly what
+  // a full row of equal cells needs to fit, so equal cells always get the grid.
+  const pitchMm = (box.width + CELL_GAP_MM) / Math.max(1, columns);
   const equalColumns = items.every((_, i) => cellW(i, size) <= pitchMm - CELL_GAP_MM + EPS_MM);
   const rowHeights = rows.map((row) => aboveMm + Math.max(0, ...row.map((i) => size * items[i].heightPerSize)) + belowOf(row));
   const spareHMm = Math.max(0, box.height - heightMm);
@@ -130,8 +132,9 @@ export function planCellRows(items: readonly CellItem[], box: BoxMm, opts: CellR
     for (const i of row) h = Math.max(h, size * items[i].heightPerSize);
     const baseline = topMm + aboveMm + h;
     if (equalColumns) {
+      const shiftMm = ((columns - row.length) / 2) * pitchMm;
       row.forEach((i, k) => {
-        centreXMm[i] = box.x + (k + 0.5) * pitchMm;
+        centreXMm[i] = box.x + shiftMm + k * pitchMm + (pitchMm - CELL_GAP_MM) / 2;
         baselineYMm[i] = baseline;
       });
     } else {

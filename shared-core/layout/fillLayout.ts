@@ -12,7 +12,15 @@ import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from '
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
 
-export const FILL_MAX_GLYPH_MM = 60;
+/**
+ * Largest glyph size at which every glyph could stand alone in the box. Fill has no fixed cap: the level is
+ * read against the glyph's own outline, which a larger glyph only makes easier to read, and the labels keep
+ * their print size whatever the glyph size. The content box is the only limit; the planner then picks the
+ * arrangement (one row, two rows...) that lets the glyphs be largest.
+ */
+function largestInBox(items: readonly CellItem[], box: { width: number; height: number }): number {
+  return Math.min(...items.map((it) => Math.min(box.width / it.widthPerSize, box.height / it.heightPerSize)));
+}
 /** The legend's key says what a full glyph means; it need not be drawn at the marks' size, which may be large. */
 const KEY_MAX_HEIGHT_MM = 8;
 
@@ -56,7 +64,7 @@ export function fillLayout(ctx: LayoutContext): ModeResult {
     labels: layout.labels,
     valueLabels: layout.valueLabels,
     legendHeightMm: (size) => (layout.legend ? unitLegendHeightMm(Math.min(KEY_MAX_HEIGHT_MM, (size * keyFactor.height) / f.largest)) : 0),
-    maxSize: asked ?? FILL_MAX_GLYPH_MM,
+    maxSize: asked ?? largestInBox(items, box),
     minSize: Math.min(MIN_GLYPH_MM, asked ?? MIN_GLYPH_MM),
   });
   if (!plan.fits) throw noRoomError(spec, { what: 'The glyphs and their labels', roomMm: { width: box.width, height: box.height }, neededMm: { width: plan.widthMm, height: plan.heightMm } });

@@ -87,67 +87,133 @@ export function readableFloor(x: number): number {
 
 export const SCALE_LEGEND_CAPTION = 'Glyph area shows the value:';
 
-interface Reference {
+/** One column of the scale key: a reference glyph at `value`, its size at the chart's ink per value. */
+interface KeyColumn {
+  glyph: ResolvedGlyph;
   value: number;
-  shape: ChartShape;
+  /** Which grey: the first reference of a glyph, the second... */
+  colorIndex: number;
+  glyphWidthMm: number;
+  glyphHeightMm: number;
+  valueText: string;
+  /** The wider of the glyph and its value text. */
+  cellWidthMm: number;
 }
 
+/** Space between key columns, and between wrapped key rows. */
+const KEY_COLUMN_GAP_MM = 4;
+const KEY_ROW_GAP_MM = 2;
+/** Space after the caption before the first column. */
+const KEY_CAPTION_GAP_MM = 3;
+
 /**
- * Reference amounts for a scale legend: a readable value near a quarter of the largest, and one near a
- * quarter of that (half its height) when it is still tall enough to read as the glyph.
+ * The scale key's grid, computed from the glyphs' ink alone (no geometry yet), so the layout can ask how
+ * tall the key is at any size. Reference amounts: a readable value near a quarter of the largest, and for the
+ * first glyph one near a quarter of that (half its height) when it is still tall enough to read as the glyph;
+ * each further glyph gets its first reference. Columns share one pitch (the widest cell plus a gap) and wrap
+ * onto further rows when the width runs out, each row starting under the first column; when not even one
+ * column fits beside the caption, the caption takes a line of its own above the grid. `fits` is false when
+ * one column is wider than the box: the key cannot be drawn at this size.
  */
-function references(book: GlyphBook, glyph: ResolvedGlyph, inkMm2PerValue: number, maxValue: number): Reference[] {
-  const first = readableFloor(maxValue / 4);
-  if (!(first > 0)) return [];
-  const refs: Reference[] = [{ value: first, shape: book.shape(glyph, inkMm2PerValue * first) }];
-  const second = readableFloor(first / 4);
+export interface ScaleKeyPlan {
+  columns: KeyColumn[];
+  perRow: number;
+  pitchMm: number;
+  /** Caption on its own line above the grid (else beside the first row). */
+  captionAbove: boolean;
+  /** Left edge of the grid, from the box's left edge. */
+  gridXMm: number;
+  /** Tallest glyph per key row. */
+  rowGlyphHeightsMm: number[];
+  /** Height of the whole key, without the gap above it. */
+  heightMm: number;
+  /** Widest row, caption included, from the box's left edge. */
+  widthMm: number;
+  fits: boolean;
+}
+
+export function planScaleKey(glyphs: readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number, unitName: string, boxWidthMm: number): ScaleKeyPlan {
   const m = lineMetrics(TEXT_SIZE_MM.legend);
-  if (second > 0 && second < first) {
-    const shape = book.shape(glyph, inkMm2PerValue * second);
-    if (shape.heightMm >= m.capHeightMm + m.descentMm) refs.push({ value: second, shape });
-  }
-  return refs;
-}
-
-/**
- * Height the scale legend adds below the marks, gap included: the reference glyphs over one line of their
- * values; with several glyphs drawn, the tallest first reference sets the row.
- */
-export function scaleLegendHeightMm(glyphs: ResolvedGlyph | readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number): number {
-  const list = Array.isArray(glyphs) ? (glyphs as readonly ResolvedGlyph[]) : [glyphs as ResolvedGlyph];
   const first = readableFloor(maxValue / 4);
-  if (!(first > 0) || list.length === 0) return 0;
-  const heightMm = Math.max(...list.map((g) => g.bbox.height * Math.sqrt((inkMm2PerValue * first) / g.areaUnits2)));
-  return LEGEND_GAP_MM + heightMm + KEY_TEXT_GAP_MM + lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm;
+  const second = readableFloor(first / 4);
+  const columns: KeyColumn[] = [];
+  const column = (glyph: ResolvedGlyph, value: number, colorIndex: number): KeyColumn => {
+    const mmPerUnit = Math.sqrt((inkMm2PerValue * value) / glyph.areaUnits2);
+    const valueText = `${formatValue(value)}${unitName ? ` ${unitName}` : ''}`;
+    const glyphWidthMm = glyph.bbox.width * mmPerUnit;
+    return { glyph, value, colorIndex, glyphWidthMm, glyphHeightMm: glyph.bbox.height * mmPerUnit, valueText, cellWidthMm: Math.max(glyphWidthMm, textWidthMm(valueText, TEXT_SIZE_MM.legend)) };
+  };
+  if (first > 0 && inkMm2PerValue > 0) {
+    glyphs.forEach((g, gi) => {
+      columns.push(column(g, first, 0));
+      if (gi === 0 && second > 0 && second < first) {
+        const c = column(g, second, 1);
+        if (c.glyphHeightMm >= m.capHeightMm + m.descentMm) columns.push(c);
+      }
+    });
+  }
+  if (columns.length === 0) return { columns, perRow: 0, pitchMm: 0, captionAbove: false, gridXMm: 0, rowGlyphHeightsMm: [], heightMm: 0, widthMm: 0, fits: true };
+  const captionWMm = textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend);
+  const cellMm = Math.max(...columns.map((c) => c.cellWidthMm));
+  const pitchMm = cellMm + KEY_COLUMN_GAP_MM;
+  const besideXMm = captionWMm + KEY_CAPTION_GAP_MM;
+  const captionAbove = besideXMm + cellMm > boxWidthMm + 1e-9;
+  const gridXMm = captionAbove ? 0 : besideXMm;
+  const fits = gridXMm + cellMm <= boxWidthMm + 1e-9 && captionWMm <= boxWidthMm + 1e-9;
+  const perRow = Math.max(1, Math.min(columns.length, Math.floor((boxWidthMm - gridXMm + KEY_COLUMN_GAP_MM + 1e-9) / pitchMm)));
+  const rowGlyphHeightsMm: number[] = [];
+  for (let i = 0; i < columns.length; i += perRow) rowGlyphHeightsMm.push(Math.max(...columns.slice(i, i + perRow).map((c) => c.glyphHeightMm)));
+  const rowsMm = rowGlyphHeightsMm.reduce((a, h) => a + h + KEY_TEXT_GAP_MM + m.boxHeightMm, 0) + (rowGlyphHeightsMm.length - 1) * KEY_ROW_GAP_MM;
+  const heightMm = rowsMm + (captionAbove ? m.boxHeightMm + KEY_ROW_GAP_MM : 0);
+  const widthMm = Math.max(captionWMm, gridXMm + perRow * pitchMm - KEY_COLUMN_GAP_MM);
+  return { columns, perRow, pitchMm, captionAbove, gridXMm, rowGlyphHeightsMm, heightMm, widthMm, fits };
 }
 
 /**
- * The scale key as a grid: the caption in the first column, then one column per reference glyph, the glyphs
- * standing on one baseline and each value centred under its glyph on the caption's text line. Every distinct
- * glyph drawn gets its columns (the first glyph both references, each further glyph the first), each at the
- * chart's one ink per value, so a row drawn with its own glyph is keyed too.
+ * Height the scale legend adds below the marks, gap included; Infinity when the key cannot fit the width
+ * at this size (so the layout tries a smaller one, and refuses when none is legible).
+ */
+export function scaleLegendHeightMm(glyphs: ResolvedGlyph | readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number, unitName = '', boxWidthMm = Infinity): number {
+  const list = Array.isArray(glyphs) ? (glyphs as readonly ResolvedGlyph[]) : [glyphs as ResolvedGlyph];
+  const plan = planScaleKey(list, inkMm2PerValue, maxValue, unitName, boxWidthMm);
+  if (plan.columns.length === 0) return 0;
+  return plan.fits ? LEGEND_GAP_MM + plan.heightMm : Infinity;
+}
+
+/**
+ * The scale key as a grid: the caption in the first column (or above, on a narrow page), then one column per
+ * reference glyph on one pitch, wrapping onto further rows under the first column; in each row the glyphs stand
+ * on one baseline with each value centred under its glyph on one text line (the caption's, in the first row).
+ * Every distinct glyph drawn gets its column, each at the chart's one ink per value, so a row drawn with its own
+ * glyph is keyed too.
  */
 export function placeScaleLegend(book: GlyphBook, glyphs: ResolvedGlyph | readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number, unitName: string, box: BoxMm, topMm: number): LegendPart {
   const list = Array.isArray(glyphs) ? (glyphs as readonly ResolvedGlyph[]) : [glyphs as ResolvedGlyph];
-  const columns = list.flatMap((g, gi) => {
-    const refs = references(book, g, inkMm2PerValue, maxValue);
-    return (gi === 0 ? refs : refs.slice(0, 1)).map((ref, i) => ({ glyph: g, ref, colorIndex: i }));
-  });
-  if (columns.length === 0) return { texts: [], legendKeys: [], bottomMm: topMm };
+  const plan = planScaleKey(list, inkMm2PerValue, maxValue, unitName, box.width);
+  if (plan.columns.length === 0) return { texts: [], legendKeys: [], bottomMm: topMm };
   const m = lineMetrics(TEXT_SIZE_MM.legend);
-  const glyphBaseMm = topMm + Math.max(...columns.map((c) => c.ref.shape.heightMm));
-  const textBaselineMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.ascentMm;
-  const bottomMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.boxHeightMm;
-  const texts: SceneText[] = [makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted })];
+  const texts: SceneText[] = [];
   const legendKeys: SceneLegendKey[] = [];
-  let columnXMm = box.x + textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend) + 3;
-  columns.forEach(({ glyph, ref, colorIndex }) => {
-    const valueText = `${formatValue(ref.value)}${unitName ? ` ${unitName}` : ''}`;
-    const columnWMm = Math.max(ref.shape.widthMm, textWidthMm(valueText, TEXT_SIZE_MM.legend));
-    const centreXMm = columnXMm + columnWMm / 2;
-    legendKeys.push({ glyph: glyph.name, region: book.full(ref.shape, centreXMm - ref.shape.widthMm / 2, glyphBaseMm - ref.shape.heightMm).region, color: INK_COLORS.referenceKeys[colorIndex + 1] ?? INK_COLORS.key, unitValue: ref.value, unitName });
-    texts.push(makeText({ role: 'legend', text: valueText, xMm: centreXMm, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, anchor: 'middle', color: INK_COLORS.muted }));
-    columnXMm += columnWMm + 4;
+  let rowTopMm = topMm;
+  if (plan.captionAbove) {
+    texts.push(makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: topMm + m.ascentMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted }));
+    rowTopMm += m.boxHeightMm + KEY_ROW_GAP_MM;
+  }
+  let bottomMm = rowTopMm;
+  plan.rowGlyphHeightsMm.forEach((rowGlyphMm, r) => {
+    const glyphBaseMm = rowTopMm + rowGlyphMm;
+    const textBaselineMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.ascentMm;
+    if (r === 0 && !plan.captionAbove) {
+      texts.push(makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted }));
+    }
+    plan.columns.slice(r * plan.perRow, (r + 1) * plan.perRow).forEach((c, k) => {
+      const centreXMm = box.x + plan.gridXMm + k * plan.pitchMm + (plan.pitchMm - KEY_COLUMN_GAP_MM) / 2;
+      const shape = book.shape(c.glyph, inkMm2PerValue * c.value);
+      legendKeys.push({ glyph: c.glyph.name, region: book.full(shape, centreXMm - shape.widthMm / 2, glyphBaseMm - shape.heightMm).region, color: INK_COLORS.referenceKeys[c.colorIndex + 1] ?? INK_COLORS.key, unitValue: c.value, unitName });
+      texts.push(makeText({ role: 'legend', text: c.valueText, xMm: centreXMm, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, anchor: 'middle', color: INK_COLORS.muted }));
+    });
+    bottomMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.boxHeightMm;
+    rowTopMm = bottomMm + KEY_ROW_GAP_MM;
   });
   return { texts, legendKeys, bottomMm };
 }

@@ -1,7 +1,10 @@
 // Tallyglyph's colours. Categories take Paul Tol's "muted" qualitative scheme (Paul Tol, "Colour Schemes",
-// SRON technical note SRON/EPS/TN/09-002, 2021; hex values from memory): nine colours chosen to stay
-// distinguishable for readers with colour-vision deficiency and in grey print. Ordered so the six that reach
-// 3:1 against white paper (the contrast WCAG 2.1 asks of graphical objects) come first.
+// SRON technical note SRON/EPS/TN/09-002): nine colours chosen to stay distinguishable for readers with
+// colour-vision deficiency and in grey print. Hex values checked against Paul Tol's own tol_colors.py
+// (2019, BSD-3-Clause), tol_cset('muted'): rose #CC6677, indigo #332288, sand #DDCC77, green #117733,
+// cyan #88CCEE, wine #882255, teal #44AA99, olive #999933, purple #AA4499 (pale grey #DDDDDD is its
+// colour for missing data, not a category); all nine agree. Ordered so the six that reach 3:1 against
+// white paper (the contrast WCAG 2.1 asks of graphical objects) come first.
 import { TallyError, type Warning } from '../errors';
 
 /** Category colours in order of use: indigo, rose, green, purple, olive, wine, teal, cyan, sand. */

@@ -33,15 +33,23 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
   // glyphSizeMm, when given, is the larger side of the largest glyph's ink box.
   const maxSize = asked !== undefined ? asked / largestSide : box.height / tallest;
   const inkPerValue = (size: number) => (maxValue > 0 ? (size * size) / maxValue : 0);
+  const unitName = spec.encoding.unitName ?? '';
   const plan = planCellRows(items, box, {
     columns: layout.columns,
     labels: layout.labels,
     valueLabels: layout.valueLabels,
-    legendHeightMm: (size) => (layout.legend && maxValue > 0 ? scaleLegendHeightMm(keys, inkPerValue(size), maxValue) : 0),
+    // The key wraps onto rows within the box's width; where not even one key column fits, the size is refused.
+    legendHeightMm: (size) => (layout.legend && maxValue > 0 ? scaleLegendHeightMm(keys, inkPerValue(size), maxValue, unitName, box.width) : 0),
     maxSize,
     minSize: Math.min(MIN_GLYPH_MM / largestSide, maxSize),
   });
-  if (!plan.fits) throw noRoomError(spec, { what: 'The scaled glyphs and their labels', roomMm: { width: box.width, height: box.height }, neededMm: { width: plan.widthMm, height: plan.heightMm } });
+  if (!plan.fits) {
+    const keyFits = Number.isFinite(plan.heightMm);
+    throw noRoomError(spec, {
+      what: keyFits ? 'The scaled glyphs and their labels' : 'The scale key\'s reference glyphs',
+      ...(keyFits ? { roomMm: { width: box.width, height: box.height }, neededMm: { width: plan.widthMm, height: plan.heightMm } } : {}),
+    });
+  }
   if (asked !== undefined && plan.size < maxSize * (1 - 1e-9)) {
     ctx.warnings.push({ code: 'glyph-size-reduced', message: `The largest glyph at ${formatValue(asked)} mm does not fit inside the margins; it is drawn at ${formatValue(plan.size * largestSide)} mm.` });
   }
@@ -72,7 +80,7 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
 
   const legendKeys: SceneLegendKey[] = [];
   if (layout.legend && k > 0) {
-    const legend = placeScaleLegend(book, keys, k, maxValue, spec.encoding.unitName ?? '', box, plan.bottomMm + LEGEND_GAP_MM);
+    const legend = placeScaleLegend(book, keys, k, maxValue, unitName, box, plan.bottomMm + LEGEND_GAP_MM);
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }

@@ -199,6 +199,19 @@ describe.skipIf(!haveChromium)(`documents in Chromium (skipped when ${CHROMIUM} 
       expect(await page.locator('.recent-item .recent-name').allTextContents()).toContain('copy of rides.json');
     });
 
+    it('opens a chart document the operating system passed at launch, as Open would', async () => {
+      const { context, host } = await newContext({ desktopFolder: folder });
+      const file = path.join(folder, 'rides from the file manager.json');
+      fs.writeFileSync(file, JSON.stringify({ ...BIKES, title: 'Opened by double-click' }, null, 2));
+      (host as DesktopHost).openRequests.add(file);
+      const page = await openApp(context);
+      await expect.poll(() => page.locator('#chart-title').inputValue(), { timeout: 15_000 }).toBe('Opened by double-click');
+      await expect.poll(() => page.getByTestId('notice').textContent()).toBe('Opened rides from the file manager.json.');
+      await waitForVerdict(page, 'pass');
+      expect((host as DesktopHost).openRequests.size).toBe(0);
+      await shot(page, 'documents-opened-by-os');
+    });
+
     it('keeps the recovery copy in a file through the desktop host and restores it in a new window', async () => {
       const { context } = await newContext({ desktopFolder: folder });
       const page = await openApp(context);

@@ -25,14 +25,17 @@ const MODES: Record<string, ChartDocument['encoding']> = {
   stack: { mode: 'stack', glyph: 'coffee', unitName: 'cups' },
   scale: { mode: 'scale', glyph: 'tree', unitName: 'trees' },
   fill: { mode: 'fill', glyph: 'drop', unitName: 'litres' },
+  'scale, a glyph per row': { mode: 'scale', glyph: 'tree', unitName: 'things' },
 };
+/** Bundled glyphs of many shapes (wide, tall, round), one per row where a mode's name says so: every one is keyed. */
+const ROW_GLYPHS = ['tree', 'house', 'bike', 'car', 'bus', 'heart', 'person', 'drop', 'coffee', 'star', 'leaf', 'fish', 'sun', 'book', 'plane', 'cat'];
 
-function chart(encoding: ChartDocument['encoding'], page: { width: number; height: number }, n: number): ChartDocument {
+function chart(encoding: ChartDocument['encoding'], page: { width: number; height: number }, n: number, glyphPerRow = encoding === MODES['scale, a glyph per row']): ChartDocument {
   return {
     format: 'tallyglyph.chart/1',
     title: `Rides per station (${n})`,
     source: 'Invented demo data',
-    data: LABELS.slice(0, n).map((label, i) => ({ label, value: VALUES[i] })),
+    data: LABELS.slice(0, n).map((label, i) => ({ label, value: VALUES[i], ...(glyphPerRow ? { glyph: ROW_GLYPHS[i] } : {}) })),
     encoding,
     page: { ...page, unit: 'mm' },
   };
@@ -140,4 +143,104 @@ describe('composition uses the page', () => {
       });
     }
   }
+});
+
+describe('fill and scale glyphs use the content box', () => {
+  function blockBox(scene: Scene) {
+    const block = drawnBoxes(scene).filter((d) => !/^(title|source) text/.test(d.what)).map((d) => d.box);
+    const minX = Math.min(...block.map((b) => b.x));
+    const minY = Math.min(...block.map((b) => b.y));
+    return { width: Math.max(...block.map((b) => b.x + b.width)) - minX, height: Math.max(...block.map((b) => b.y + b.height)) - minY };
+  }
+
+  // Common practice, no source: a chart with few categories is drawn large enough that its block (marks, labels and
+  // key) covers at least half of the content box. Fill glyphs used to stop at 60 mm, covering under a third of an
+  // A4 portrait page.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
+    for (const modeName of ['fill', 'scale']) {
+      it(`${modeName} with 3 categories on ${pageName} covers at least half of the content box`, { timeout: 60_000 }, () => {
+        const spec = parseChart(chart(MODES[modeName], page, 3));
+        const scene = layoutChart(spec);
+        const block = blockBox(scene);
+        const m = spec.layout.margins;
+        const room = { width: spec.page.widthMm - m.left - m.right, height: spec.page.heightMm - m.top - m.bottom };
+        expect((block.width * block.height) / (room.width * room.height)).toBeGreaterThan(0.5);
+        expect(pageFitProblems(scene, spec)).toEqual([]);
+      });
+    }
+  }
+
+  it('fill glyphs of 10 categories on A4 portrait stand on one column grid, the short last row centred on it', { timeout: 60_000 }, () => {
+    const spec = parseChart(chart(MODES.fill, PAGES['A4 portrait'], 10));
+    const scene = layoutChart(spec);
+    const boxes = scene.marks.map((mk) => drawnBoxes({ ...scene, marks: [mk], texts: [], lines: [], legendKeys: [] }).map((d) => d.box));
+    const glyph = boxes.map((parts) => ({
+      x: Math.min(...parts.map((b) => b.x)),
+      right: Math.max(...parts.map((b) => b.x + b.width)),
+      top: Math.min(...parts.map((b) => b.y)),
+      bottom: Math.max(...parts.map((b) => b.y + b.height)),
+    }));
+    const centres = glyph.map((g) => (g.x + g.right) / 2);
+    const rowsByBottom = new Map<string, number[]>();
+    glyph.forEach((g, i) => rowsByBottom.set(g.bottom.toFixed(3), [...(rowsByBottom.get(g.bottom.toFixed(3)) ?? []), i]));
+    const rows = [...rowsByBottom.values()];
+    expect(rows.length).toBeGreaterThan(1);
+    // Every centre of a later row sits on a centre of the first (full) row: one grid, a short row centred on it.
+    const firstRow = rows[0].map((i) => centres[i]);
+    for (const row of rows.slice(1)) for (const i of row) expect(Math.min(...firstRow.map((c) => Math.abs(c - centres[i])))).toBeLessThan(1e-6);
+  });
+
+  it('fill glyphs of 3 categories on A4 portrait are drawn larger than the old 60 mm cap', { timeout: 60_000 }, () => {
+    const scene = layoutChart(parseChart(chart(MODES.fill, PAGES['A4 portrait'], 3)));
+    const heights = scene.marks.map((mk) => {
+      const parts = drawnBoxes({ ...scene, marks: [mk], texts: [], lines: [], legendKeys: [] }).map((d) => d.box);
+      return Math.max(...parts.map((b) => b.y + b.height)) - Math.min(...parts.map((b) => b.y));
+    });
+    expect(Math.min(...heights)).toBeGreaterThan(60);
+  });
+});
+
+describe('the scale key with a glyph per row', () => {
+  // 16 categories, each its own glyph: 17 reference glyphs (the first glyph has two) that cannot stand in one line.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
+    it(`wraps onto a grid inside the content box on ${pageName}, one key per glyph drawn, values centred under their glyphs`, { timeout: 60_000 }, () => {
+      const spec = parseChart(chart(MODES['scale, a glyph per row'], page, 16));
+      const scene = layoutChart(spec);
+      expect(pageFitProblems(scene, spec)).toEqual([]);
+      expect(new Set(scene.legendKeys.map((k) => k.glyph))).toEqual(new Set(ROW_GLYPHS));
+      const keyBoxes = drawnBoxes(scene).filter((d) => d.what.startsWith('legend key')).map((d) => d.box);
+      const bottoms = [...new Set(keyBoxes.map((b) => (b.y + b.height).toFixed(3)))];
+      // More than one row of key glyphs, each row standing on one baseline.
+      expect(bottoms.length).toBeGreaterThan(1);
+      // Key columns share one pitch: the centre of every key glyph is one of the first row's centres.
+      const firstBottom = Math.min(...bottoms.map(Number));
+      const centres = keyBoxes.map((b) => b.x + b.width / 2);
+      const firstRow = keyBoxes.map((b, i) => ((b.y + b.height).toFixed(3) === firstBottom.toFixed(3) ? centres[i] : NaN)).filter((c) => !Number.isNaN(c));
+      for (const c of centres) expect(Math.min(...firstRow.map((f) => Math.abs(f - c)))).toBeLessThan(1e-6);
+      // Each value text is centred under a key glyph.
+      const valueTexts = scene.texts.filter((t) => t.role === 'legend' && /things$/.test(t.text) && t.bboxMm);
+      expect(valueTexts.length).toBe(keyBoxes.length);
+      for (const t of valueTexts) {
+        const mid = t.bboxMm!.x + t.bboxMm!.width / 2;
+        expect(Math.min(...centres.map((c) => Math.abs(c - mid)))).toBeLessThan(0.3);
+      }
+    });
+  }
+
+  it('refuses with layout-no-room, naming the key, when even one key column is wider than the content box', () => {
+    // 60 mm of room: three short-labelled glyphs fit, but a key value with a long unit name ("10 litres of ...") cannot.
+    const doc: ChartDocument = {
+      format: 'tallyglyph.chart/1',
+      data: [{ label: 'A', value: 40 }, { label: 'B', value: 20 }, { label: 'C', value: 10 }],
+      encoding: { mode: 'scale', glyph: 'drop', unitName: 'litres of rainwater collected from the roof each week' },
+      page: { width: 80, height: 150, unit: 'mm' },
+    };
+    const e = caught(() => layoutChart(parseChart(doc)));
+    expect(e.code).toBe('layout-no-room');
+    expect(e.message).toMatch(/scale key/);
+    expect(e.message).toMatch(/bigger page/);
+    // Without the key the same marks fit: the refusal is the key's.
+    const spec = parseChart({ ...doc, layout: { legend: false } });
+    expect(pageFitProblems(layoutChart(spec), spec)).toEqual([]);
+  });
 });

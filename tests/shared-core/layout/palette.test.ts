@@ -21,6 +21,13 @@ describe('PALETTE', () => {
     for (const c of PALETTE) expect(c).toMatch(/^#[0-9a-f]{6}$/);
   });
 
+  it('holds exactly the nine category colours of Paul Tol\'s muted scheme', () => {
+    // Paul Tol, tol_colors.py (2019, BSD-3-Clause), tol_cset('muted'), in his order: rose, indigo, sand, green,
+    // cyan, wine, teal, olive, purple; its tenth colour, pale grey #DDDDDD, marks missing data and is left out.
+    const tolMuted = ['#CC6677', '#332288', '#DDCC77', '#117733', '#88CCEE', '#882255', '#44AA99', '#999933', '#AA4499'];
+    expect([...PALETTE].sort()).toEqual(tolMuted.map((c) => c.toLowerCase()).sort());
+  });
+
   it('keeps the first six colours at least 3:1 against white paper (WCAG 2.1, 1.4.11 non-text contrast)', () => {
     // The scheme's cyan and sand are light (about 1.7:1); they come last so charts of up to six categories meet 3:1.
     for (const c of PALETTE.slice(0, 6)) expect(contrast(c, '#ffffff')).toBeGreaterThanOrEqual(3);

@@ -5,6 +5,7 @@
 import path from 'node:path';
 import type { BrowserContext } from 'playwright-core';
 import { createHostHandlers, type FileKind } from '../../../../main/electron/ipcHandlers';
+import { createOpenRequestQueue, type OpenRequestQueue } from '../../../../main/electron/openRequests';
 import { HOST_CHANNELS, HOST_GLOBAL_NAME, type HostMethod } from '../../../../shared-core/host';
 
 export interface DesktopHost {
@@ -14,12 +15,15 @@ export interface DesktopHost {
   nextSaveName: string | null | undefined;
   nextOpenPath: string | null;
   folder: string;
+  /** Documents "the operating system" passed: add paths before a page loads and the app opens the first. */
+  openRequests: OpenRequestQueue;
 }
 
 /** Installs the desktop host in every page of `context`; files go to `folder`. */
 export async function installDesktopHost(context: BrowserContext, folder: string): Promise<DesktopHost> {
-  const state: DesktopHost = { saves: [], nextSaveName: undefined, nextOpenPath: null, folder };
+  const state: DesktopHost = { saves: [], nextSaveName: undefined, nextOpenPath: null, folder, openRequests: createOpenRequestQueue(() => undefined) };
   const handlers = createHostHandlers({
+    openRequests: state.openRequests,
     recentFile: path.join(folder, 'recent.json'),
     dialogs: {
       async chooseOpenPath() {
@@ -42,6 +46,14 @@ export async function installDesktopHost(context: BrowserContext, folder: string
     ({ globalName, methods }) => {
       const invoke = (window as unknown as { __tallyglyphInvoke: (m: string, p: unknown) => Promise<unknown> }).__tallyglyphInvoke;
       const host: Record<string, unknown> = { onMenuCommand: () => () => undefined };
+      // As the preload does: documents waiting when the app subscribes are taken through the checked channel.
+      host.onOpenRequest = (listener: (requests: unknown[]) => void) => {
+        void invoke('takeOpenRequests', {}).then((r) => {
+          const result = r as { ok: boolean; value?: unknown[] };
+          if (result.ok && result.value && result.value.length > 0) listener(result.value);
+        });
+        return () => undefined;
+      };
       for (const m of methods) host[m] = (request?: unknown) => invoke(m, request ?? {});
       Object.defineProperty(window, globalName, { value: Object.freeze(host), configurable: false, writable: false });
     },
