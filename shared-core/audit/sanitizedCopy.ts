@@ -80,6 +80,7 @@ export function sanitizedCopy(root: XmlElement, idPrefix: string, options: Sanit
   };
 
   const textNotShown: TextNotShown[] = [];
+  let outlinedTexts = 0;
   const write = (el: XmlElement, parentStyle: InheritedTextStyle): string => {
     if (DROPPED.has(el.name)) {
       note(`<${el.name}> elements`);
@@ -90,7 +91,9 @@ export function sanitizedCopy(root: XmlElement, idPrefix: string, options: Sanit
     const style = inheritTextStyle(parentStyle, el);
     if (el.name === 'text' && options.outlineText) {
       // Live text would need the drawing's fonts in every viewer and in the PNG renderer: outline it.
-      const outlined = outlineSuppliedText(el, style, (e) => attributes(e, TEXT_POSITION));
+      // A text without an id gets one, so a checker can hide the words and measure the marks alone.
+      const idOf = (e: XmlElement) => (e === el && e.attrs.id === undefined ? ` id="${escapeXmlAttr(`${idPrefix}outlined-text-${++outlinedTexts}`)}"` : '');
+      const outlined = outlineSuppliedText(el, style, (e) => idOf(e) + attributes(e, TEXT_POSITION));
       if (outlined.kind === 'outlined') return outlined.markup;
       if (outlined.kind === 'not-shown') textNotShown.push(outlined.notShown);
       return '';
