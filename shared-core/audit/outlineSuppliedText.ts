@@ -33,6 +33,17 @@ export interface TextNotShown {
   reason: string;
 }
 
+/**
+ * Most characters of supplied text one copy draws as outlines: far more than any chart's labels, few
+ * enough that a file of nothing but text cannot make the sheet huge or slow (common practice, no source).
+ */
+export const MAX_OUTLINED_CHARACTERS = 20_000;
+
+/** What is left of MAX_OUTLINED_CHARACTERS for one copy of a drawing. */
+export interface OutlineBudget {
+  characters: number;
+}
+
 export type OutlinedText = { kind: 'outlined'; markup: string } | { kind: 'not-shown'; notShown: TextNotShown } | { kind: 'hidden' };
 
 const CSS_PX_PER: Record<string, number> = { px: 1, '': 1, pt: 96 / 72, pc: 16, in: 96, cm: 96 / 2.54, mm: 96 / 25.4 };
@@ -163,7 +174,7 @@ function decimalsFor(sizeUnits: number): number {
  * outline paths in the element's own user units, or the reason it cannot be shown. `attributesOf` gives an
  * element's cleaned attributes for the group that replaces it (fill, stroke, transform, opacity still apply).
  */
-export function outlineSuppliedText(el: XmlElement, style: InheritedTextStyle, attributesOf: (el: XmlElement) => string): OutlinedText {
+export function outlineSuppliedText(el: XmlElement, style: InheritedTextStyle, attributesOf: (el: XmlElement) => string, budget: OutlineBudget): OutlinedText {
   if (style.hidden) return { kind: 'hidden' };
   const fullText = collapse(plainText(el)).trim();
   if (fullText === '') return { kind: 'hidden' };
@@ -171,6 +182,9 @@ export function outlineSuppliedText(el: XmlElement, style: InheritedTextStyle, a
     kind: 'not-shown',
     notShown: { text: shortenText(fullText, 40).text, font: style.family ?? '(none)', reason },
   });
+  const characters = [...fullText].length;
+  if (characters > budget.characters) return notShown(`the drawing holds more text than the sheet draws (${MAX_OUTLINED_CHARACTERS.toLocaleString('en')} characters)`);
+  budget.characters -= characters;
   const runs: Run[] = [];
   const layoutProblem = runsOf(el, style, attributesOf, runs);
   if (layoutProblem) return notShown(layoutProblem);

@@ -5,7 +5,7 @@ import { escapeXmlAttr, escapeXmlText } from '../svg/writeSvg';
 import type { XmlElement } from '../svg/parseXml';
 import type { Warning } from '../errors';
 import { cleanCss } from './outsideReferences';
-import { INITIAL_TEXT_STYLE, inheritTextStyle, outlineSuppliedText, textNotShownNote, type InheritedTextStyle, type TextNotShown } from './outlineSuppliedText';
+import { INITIAL_TEXT_STYLE, MAX_OUTLINED_CHARACTERS, inheritTextStyle, outlineSuppliedText, textNotShownNote, type InheritedTextStyle, type TextNotShown } from './outlineSuppliedText';
 
 const DROPPED = new Set(['script', 'foreignObject', 'style', 'iframe', 'handler', 'listener']);
 const ROOT_ONLY = new Set(['width', 'height', 'viewBox', 'x', 'y', 'version', 'preserveAspectRatio', 'baseProfile', 'zoomAndPan', 'contentScriptType', 'contentStyleType', 'id']);
@@ -81,6 +81,7 @@ export function sanitizedCopy(root: XmlElement, idPrefix: string, options: Sanit
 
   const textNotShown: TextNotShown[] = [];
   let outlinedTexts = 0;
+  const outlineBudget = { characters: MAX_OUTLINED_CHARACTERS };
   const write = (el: XmlElement, parentStyle: InheritedTextStyle): string => {
     if (DROPPED.has(el.name)) {
       note(`<${el.name}> elements`);
@@ -93,7 +94,7 @@ export function sanitizedCopy(root: XmlElement, idPrefix: string, options: Sanit
       // Live text would need the drawing's fonts in every viewer and in the PNG renderer: outline it.
       // A text without an id gets one, so a checker can hide the words and measure the marks alone.
       const idOf = (e: XmlElement) => (e === el && e.attrs.id === undefined ? ` id="${escapeXmlAttr(`${idPrefix}outlined-text-${++outlinedTexts}`)}"` : '');
-      const outlined = outlineSuppliedText(el, style, (e) => idOf(e) + attributes(e, TEXT_POSITION));
+      const outlined = outlineSuppliedText(el, style, (e) => idOf(e) + attributes(e, TEXT_POSITION), outlineBudget);
       if (outlined.kind === 'outlined') return outlined.markup;
       if (outlined.kind === 'not-shown') textNotShown.push(outlined.notShown);
       return '';

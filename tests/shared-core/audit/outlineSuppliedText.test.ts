@@ -110,3 +110,19 @@ describe('outlined supplied text against resvg setting the same text', () => {
     expect(copy.textNotShown).toEqual([]);
   });
 });
+
+describe('hostile amounts of text', () => {
+  it('draws at most 20,000 characters as outlines and lists the rest, in bounded time', () => {
+    // 300 texts of 100 characters: 30,000 in all, so the last 100 texts go unshown.
+    const line = 'Harbour depot crates 12 '.repeat(4) + 'abcd';
+    const body = Array.from({ length: 300 }, (_, i) => `<text x="1" y="${(i % 90) + 5}" font-family="sans-serif" font-size="1">${line}</text>`).join('');
+    const started = performance.now();
+    const copy = sanitizedCopy(importSvg(`<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 200 100">${body}</svg>`).root, 'p-', { outlineText: true });
+    // A bound only to prove the amount cannot hang the sheet (generous for a shared machine).
+    expect(performance.now() - started).toBeLessThan(30_000);
+    expect([...line].length).toBe(100);
+    expect(copy.textNotShown.length).toBe(100);
+    expect(copy.textNotShown[0].reason).toMatch(/more text than the sheet draws \(20,000 characters\)/);
+    expect(copy.warnings.find((w) => w.code === 'sheet-text-not-shown')?.message).toMatch(/leaves out 100 texts .*, and 96 more\./);
+  });
+});
