@@ -13,6 +13,7 @@ import { mergeTouching, unionBox } from './mergeTouching';
 import { colourKey, fillColourOf } from './paintColour';
 import { solidCuesOf } from './solidCues';
 import { splitComponents } from './splitComponents';
+import { shortenText } from './shortenText';
 import { splitGlyphRows } from './splitGlyphRows';
 import type { MarkPart, MeasuredMark, SetAside } from './types';
 
@@ -216,9 +217,10 @@ function partsOf(c: Candidate, tol: number, budget: FlattenBudget, check: () => 
 
 function labelOf(el: XmlElement): string | undefined {
   const dl = el.attrs['data-label'] ?? el.attrs['aria-label'];
-  if (dl && dl.trim()) return dl.trim().slice(0, 80);
+  // Cut at a grapheme boundary: a cut by UTF-16 units can split an emoji into a lone surrogate.
+  if (dl && dl.trim()) return shortenText(dl.trim(), 80).text;
   const title = el.children.find((c) => c.name === 'title');
-  if (title && title.text.trim()) return title.text.trim().slice(0, 80);
+  if (title && title.text.trim()) return shortenText(title.text.trim(), 80).text;
   return undefined;
 }
 

@@ -27,6 +27,13 @@ describe('the sheet frame', () => {
     expect(dataLine(fixed.before)).not.toMatch(/rect-447/);
   });
 
+  it('shortens a long data-label at a grapheme boundary (no lone surrogate from a split emoji; Unicode UAX #29)', () => {
+    const { fixed } = sheetOf(PARCELS(`data-label="${'a'.repeat(79)}\u{1F4E6} depot"`), [2, 8]);
+    const label = fixed.before.marks[1].label;
+    expect(label).toBe('a'.repeat(79) + '…');
+    expect(/[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/.test(label)).toBe(false);
+  });
+
   it('fits each drawing to fill its frame (its longer side spans the panel) with the frame drawn tight around it', () => {
     const { sheet } = sheetOf(PARCELS(''), [2, 8]);
     for (const box of [sheet.panels.supplied, sheet.panels.corrected]) {
