@@ -4,7 +4,11 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { TallyError } from '../../shared-core/errors';
 import { DEFAULT_AUDIT_LIMITS } from '../../shared-core/audit/auditLimits';
+import { decodeSvgBytes } from '../../shared-core/audit/decodeSvgBytes';
 import { decodeRaster, sniffKind, RASTER_IMPORT_LIMITS, type RasterImage, type RasterLimits } from './decodeRaster';
+
+// Shared with the app; re-exported so existing callers keep their imports.
+export { decodeSvgBytes };
 
 export type SuppliedFile = { kind: 'svg'; text: string; path: string; bytes: number } | { kind: 'raster'; image: RasterImage; path: string; bytes: number };
 
@@ -16,18 +20,6 @@ export interface ReadSuppliedOptions {
 
 function mb(n: number): string {
   return `${(n / 1_000_000).toFixed(1)} MB`;
-}
-
-/** Strict UTF-8 (a leading byte-order mark is dropped): a file with invalid bytes is refused, not patched. */
-export function decodeSvgBytes(bytes: Uint8Array): string {
-  if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) {
-    throw new TallyError('svg-malformed', 'The SVG is saved as UTF-16 text; save it as UTF-8 and try again.');
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(bytes);
-  } catch {
-    throw new TallyError('svg-malformed', 'The SVG file contains bytes that are not valid UTF-8 text; save it as UTF-8 and try again.');
-  }
 }
 
 export function readSuppliedFile(file: string, opts: ReadSuppliedOptions = {}): SuppliedFile {

@@ -100,6 +100,11 @@ function num(n: number): string {
 export function correctSvg(text: string, opts: CorrectOptions = {}): CorrectionResult {
   const source = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
   const { report: before, marks, imported } = auditSvgDetailed(source, opts);
+  const owners = marks.flatMap((m) => m.elements);
+  if (new Set(owners).size < owners.length) {
+    // Rows split out of one path share that path: rescaling one row would rescale them all.
+    throw new TallyError('usage', 'Several marks are pieces of one path (a unit chart merged into a single shape), so they cannot be rescaled one by one. Redraw the data as a unit chart instead (correct --rebuild repeat, or Redraw in the app).');
+  }
   const asked: ReadingName = opts.reading ?? before.suggested;
   if (asked === 'count') {
     throw new TallyError('usage', 'These marks are read by counting pictures; rescaling cannot fix a count. Redraw them with one picture per fixed amount.');

@@ -13,6 +13,8 @@ import { mergeTouching, unionBox } from './mergeTouching';
 import { colourKey, fillColourOf } from './paintColour';
 import { solidCuesOf } from './solidCues';
 import { splitComponents } from './splitComponents';
+import { shortenText } from './shortenText';
+import { splitGlyphRows } from './splitGlyphRows';
 import type { MarkPart, MeasuredMark, SetAside } from './types';
 
 /** Attribute a corrected file puts on the wrapper of each mark, so a re-audit finds the same marks. */
@@ -215,9 +217,10 @@ function partsOf(c: Candidate, tol: number, budget: FlattenBudget, check: () => 
 
 function labelOf(el: XmlElement): string | undefined {
   const dl = el.attrs['data-label'] ?? el.attrs['aria-label'];
-  if (dl && dl.trim()) return dl.trim().slice(0, 80);
+  // Cut at a grapheme boundary: a cut by UTF-16 units can split an emoji into a lone surrogate.
+  if (dl && dl.trim()) return shortenText(dl.trim(), 80).text;
   const title = el.children.find((c) => c.name === 'title');
-  if (title && title.text.trim()) return title.text.trim().slice(0, 80);
+  if (title && title.text.trim()) return shortenText(title.text.trim(), 80).text;
   return undefined;
 }
 
@@ -227,6 +230,31 @@ function fileValueOf(els: readonly XmlElement[]): number | undefined {
     if (v !== undefined && /^\s*[+-]?(\d+\.?\d*|\.\d+)([eE][+-]?\d+)?\s*$/.test(v)) return Number(v);
   }
   return undefined;
+}
+
+/**
+ * The only mark is one element holding copies of one glyph in several rows (or columns): a unit chart
+ * whose glyphs were merged into one path. Each row becomes a mark, so the chart can be read by count.
+ */
+function splitOnePathChart(mark: SvgMark, setAside: SetAside[]): SvgMark[] {
+  const split = splitGlyphRows(mark.region);
+  if (!split) return [mark];
+  setAside.push({
+    kind: 'not-a-mark',
+    description: `${describe(mark.elements[0])} holds ${split.lines.reduce((n, l) => n + l.pieces.length, 0)} copies of one glyph in ${split.lines.length} ${split.axis}s: each ${split.axis} is read as a mark.`,
+  });
+  return split.lines.map((line, k) => {
+    const id = `${mark.id}-${split.axis}-${k + 1}`;
+    return {
+      ...mark,
+      id,
+      label: id,
+      box: boxOf(line.region),
+      inkAreaUnits2: regionArea(line.region),
+      parts: line.pieces.map((p) => ({ box: p.box, inkAreaUnits2: p.areaUnits2 })),
+      region: line.region,
+    };
+  });
 }
 
 /** Find and measure the marks of an imported SVG, in document order (or in `markIds` order). */
@@ -304,5 +332,7 @@ export function findSvgMarks(imp: ImportedSvg, opts: FindMarksOptions = {}): Fou
     marks = marks.filter((m) => !small.includes(m));
   }
   if (!marks.length) throw new TallyError('glyph-empty', 'No marks were found in the SVG: nothing painted stands apart from the background.');
+  const explicit = candidates.length > 0 && candidates[0].explicitId !== undefined;
+  if (!explicit && marks.length === 1 && marks[0].elements.length === 1) marks = splitOnePathChart(marks[0], setAside);
   return { marks, setAside, toleranceUnits: tol };
 }

@@ -14,7 +14,8 @@ export type OutsideKind =
   | 'foreign-object' // <foreignObject> (HTML inside SVG: frames, forms, links)
   | 'animation' // <set>/<animate> that writes an href, a style or an event handler
   | 'style-sheet-link' // <?xml-stylesheet href=...?>
-  | 'doctype'; // a DOCTYPE naming a DTD other than the W3C's SVG DTDs
+  | 'doctype' // a DOCTYPE naming a DTD other than the W3C's SVG DTDs
+  | 'metadata-address'; // rdf:resource or sodipodi:absref in editor metadata naming anything but a fragment
 
 export interface OutsideReference {
   kind: OutsideKind;
@@ -31,6 +32,27 @@ const REMOVED_ELEMENTS = new Set(['script', 'foreignobject', 'iframe', 'handler'
 const ANIMATIONS = new Set(['set', 'animate', 'animatemotion', 'animatetransform', 'animatecolor']);
 /** Embedded raster images are inside the file; an embedded SVG or HTML could carry its own references. */
 const SAFE_DATA_URL = /^data:image\/(png|jpeg|jpg|gif|webp)[;,]/i;
+
+/**
+ * Namespaced attributes that hold an address without being an href: RDF's rdf:resource (RDF/XML syntax
+ * §2.4, the object of a statement, e.g. a licence URL) and Inkscape's sodipodi:absref (the absolute path
+ * of a linked image, which the editor falls back to loading and which tells the reader a local folder).
+ * rdf:about only names what the metadata describes and loads nothing, so it stays.
+ */
+const ADDRESS_ATTRIBUTES: ReadonlyArray<{ namespace: string; local: string; usualPrefix: string }> = [
+  { namespace: 'http://www.w3.org/1999/02/22-rdf-syntax-ns#', local: 'resource', usualPrefix: 'rdf' },
+  { namespace: 'http://sodipodi.sourceforge.net/DTD/sodipodi-0.dtd', local: 'absref', usualPrefix: 'sodipodi' },
+];
+
+/** The qualified names those attributes go by in this file: their usual prefixes and any the file binds to their namespaces. */
+function addressAttributeNames(text: string): Set<string> {
+  const names = new Set(ADDRESS_ATTRIBUTES.map((a) => `${a.usualPrefix}:${a.local}`));
+  for (const m of text.matchAll(/xmlns:([^\s=/>]+)\s*=\s*(?:"([^"]*)"|'([^']*)')/g)) {
+    const bound = ADDRESS_ATTRIBUTES.find((a) => a.namespace === (m[2] ?? m[3]));
+    if (bound) names.add(`${m[1]}:${bound.local}`);
+  }
+  return names;
+}
 
 const localName = (qname: string) => qname.slice(qname.indexOf(':') + 1).toLowerCase();
 
@@ -124,6 +146,7 @@ function scan(text: string): { found: OutsideReference[]; edits: Edit[] } {
   const parser = new SaxesParser({ xmlns: false, position: true });
   const open: Array<{ start: number; name: string; remove: boolean; styleStart?: number; css?: string }> = [];
   let removing = 0; // depth inside an element being removed whole
+  const addressNames = addressAttributeNames(text);
 
   parser.on('opentagstart', () => {
     open.push({ start: text.lastIndexOf('<', parser.position - 1), name: '', remove: false });
@@ -169,6 +192,7 @@ function scan(text: string): { found: OutsideReference[]; edits: Edit[] } {
       if (local.startsWith('on')) kind = 'event-handler';
       else if (local === 'href' || local === 'src') kind = isInsideTarget(value) ? null : 'link';
       else if (qname === 'xml:base') kind = 'link';
+      else if (addressNames.has(qname)) kind = value.trim() === '' || value.trim().startsWith('#') ? null : 'metadata-address';
       if (kind) {
         found.push({ kind, element: tag.name });
         edits.push({ ...span, text: '' });
@@ -268,6 +292,7 @@ const KIND_WORDS: Record<OutsideKind, [string, string]> = {
   animation: ['animation that sets a link, style or handler', 'animations that set links, styles or handlers'],
   'style-sheet-link': ['linked style sheet', 'linked style sheets'],
   doctype: ['DOCTYPE naming an outside DTD', 'DOCTYPEs naming outside DTDs'],
+  'metadata-address': ['address in editor metadata', 'addresses in editor metadata'],
 };
 
 /** "2 links to outside files or addresses, 1 CSS @import": counts by kind, never the addresses themselves. */

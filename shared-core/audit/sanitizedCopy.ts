@@ -5,9 +5,12 @@ import { escapeXmlAttr, escapeXmlText } from '../svg/writeSvg';
 import type { XmlElement } from '../svg/parseXml';
 import type { Warning } from '../errors';
 import { cleanCss } from './outsideReferences';
+import { INITIAL_TEXT_STYLE, MAX_OUTLINED_CHARACTERS, inheritTextStyle, outlineSuppliedText, textNotShownNote, type InheritedTextStyle, type TextNotShown } from './outlineSuppliedText';
 
 const DROPPED = new Set(['script', 'foreignObject', 'style', 'iframe', 'handler', 'listener']);
 const ROOT_ONLY = new Set(['width', 'height', 'viewBox', 'x', 'y', 'version', 'preserveAspectRatio', 'baseProfile', 'zoomAndPan', 'contentScriptType', 'contentStyleType', 'id']);
+/** Positioning attributes of a <text> that mean nothing on the group that replaces it. */
+const TEXT_POSITION = new Set(['x', 'y', 'dx', 'dy', 'rotate', 'textLength', 'lengthAdjust']);
 const SAFE_DATA_URL = /^data:image\/(png|jpeg|jpg|gif|webp)[;,]/i;
 
 export interface SanitizedCopy {
@@ -15,10 +18,20 @@ export interface SanitizedCopy {
   markup: string;
   /** The root's own presentation attributes (fill, transform, style ...), cleaned, as an attribute string for a <g>. */
   rootAttributes: string;
+  /** Text of the drawing that could not be drawn as outlines in a bundled font, and was left out. */
+  textNotShown: TextNotShown[];
   warnings: Warning[];
 }
 
-export function sanitizedCopy(root: XmlElement, idPrefix: string): SanitizedCopy {
+export interface SanitizedCopyOptions {
+  /**
+   * Draw <text> as outlines in the bundled Noto Sans (a sheet, which must look the same in every viewer
+   * and in its PNG); text it cannot draw so is left out and listed. Default false: text stays live text.
+   */
+  outlineText?: boolean;
+}
+
+export function sanitizedCopy(root: XmlElement, idPrefix: string, options: SanitizedCopyOptions = {}): SanitizedCopy {
   const dropped = new Map<string, number>();
   const note = (what: string) => dropped.set(what, (dropped.get(what) ?? 0) + 1);
   const rewrite = (value: string) =>
@@ -66,21 +79,37 @@ export function sanitizedCopy(root: XmlElement, idPrefix: string): SanitizedCopy
     return out;
   };
 
-  const write = (el: XmlElement): string => {
+  const textNotShown: TextNotShown[] = [];
+  let outlinedTexts = 0;
+  const outlineBudget = { characters: MAX_OUTLINED_CHARACTERS };
+  const write = (el: XmlElement, parentStyle: InheritedTextStyle): string => {
     if (DROPPED.has(el.name)) {
       note(`<${el.name}> elements`);
       return '';
     }
     // Editor namespaces (inkscape:, sodipodi:) carry nothing to draw.
     if (el.qname.includes(':') && !el.qname.startsWith('svg:')) return '';
+    const style = inheritTextStyle(parentStyle, el);
+    if (el.name === 'text' && options.outlineText) {
+      // Live text would need the drawing's fonts in every viewer and in the PNG renderer: outline it.
+      // A text without an id gets one, so a checker can hide the words and measure the marks alone.
+      const idOf = (e: XmlElement) => (e === el && e.attrs.id === undefined ? ` id="${escapeXmlAttr(`${idPrefix}outlined-text-${++outlinedTexts}`)}"` : '');
+      const outlined = outlineSuppliedText(el, style, (e) => idOf(e) + attributes(e, TEXT_POSITION), outlineBudget);
+      if (outlined.kind === 'outlined') return outlined.markup;
+      if (outlined.kind === 'not-shown') textNotShown.push(outlined.notShown);
+      return '';
+    }
     // The parsed tree keeps an element's own text apart from its children; text first is the usual order.
-    const inner = (el.text ? escapeXmlText(el.text) : '') + el.children.map(write).join('');
+    const inner = (el.text ? escapeXmlText(el.text) : '') + el.children.map((c) => write(c, style)).join('');
     const attrs = attributes(el, new Set());
     return inner ? `<${el.name}${attrs}>${inner}</${el.name}>` : `<${el.name}${attrs}/>`;
   };
 
-  const markup = root.children.map(write).join('');
+  const rootStyle = inheritTextStyle(INITIAL_TEXT_STYLE, root);
+  const markup = root.children.map((c) => write(c, rootStyle)).join('');
   const rootAttributes = attributes(root, ROOT_ONLY);
   const warnings: Warning[] = [...dropped.entries()].map(([what, n]) => ({ code: 'sheet-dropped', message: `The sheet's copy leaves out ${n} ${what} from the supplied file.` }));
-  return { markup, rootAttributes, warnings };
+  const textNote = textNotShownNote(textNotShown);
+  if (textNote) warnings.push({ code: 'sheet-text-not-shown', message: textNote });
+  return { markup, rootAttributes, textNotShown, warnings };
 }

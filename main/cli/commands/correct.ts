@@ -4,6 +4,8 @@ import { parseArgs } from 'node:util';
 import { auditSvg } from '../../../shared-core/audit/auditReport';
 import { correctSvg } from '../../../shared-core/audit/correctSvg';
 import { formatFactor, formatRatio } from '../../../shared-core/audit/formatNumbers';
+import { shortenText } from '../../../shared-core/audit/shortenText';
+import { TEXT_LIMITS } from '../../../shared-core/document/chartSchema';
 import { TallyError } from '../../../shared-core/errors';
 import { CORRECTION_OPTIONS, readCorrectionRequest, sameFile } from '../../audit/cliOptions';
 import { exportChart } from '../../export/exportChart';
@@ -77,6 +79,11 @@ export const command: CliCommand = {
  * The other honest answer to a distorted picture: the same data as repeated unit glyphs or stacks,
  * laid out, verified and written through the normal chart export (which refuses anything dishonest).
  */
+function shortenedNote(shortened: readonly string[]): string {
+  const which = shortened.length === 1 ? `1 label was` : `${shortened.length} labels were`;
+  return `${which} longer than a chart label may be (${TEXT_LIMITS.label} characters) and shortened at a character boundary: ${shortened.join(', ')}. Give shorter names in the supplied file if these do not read well.`;
+}
+
 async function rebuildAsChart(
   text: string,
   options: Parameters<typeof auditSvg>[1],
@@ -97,24 +104,29 @@ async function rebuildAsChart(
     ?.replace(/&#x([0-9a-f]+);/gi, (_m, h: string) => String.fromCodePoint(Math.min(0x10ffff, parseInt(h, 16))))
     .replace(/&#(\d+);/g, (_m, d: string) => String.fromCodePoint(Math.min(0x10ffff, Number(d))))
     .replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&quot;/g, '"').replace(/&apos;/g, "'").replace(/&amp;/g, '&');
+  // A supplied label (or, without one, an element id) can run past a chart label's limit: shorten it, and say so.
+  const labels = marks.map((m) => shortenText(m.label || m.id, TEXT_LIMITS.label));
+  const shortened = labels.filter((l) => l.shortened).map((l) => `"${shortenText(l.text, 40).text}"`);
   const doc = {
     format: 'tallyglyph.chart/1',
     ...(title ? { title } : {}),
     source: 'Redrawn by Tallyglyph from a supplied graphic; values as given for the audit.',
-    data: marks.map((m) => ({ label: m.label || m.id, value: Number(m.value) })),
+    data: marks.map((m, i) => ({ label: labels[i].text, value: Number(m.value) })),
     encoding: { mode, glyph: flags.glyph ?? 'square', ...(unit !== undefined ? { unit } : {}), ...(flags['unit-name'] ? { unitName: flags['unit-name'] } : {}) },
     page: { width: 180, height: 120, unit: 'mm' },
   };
   const result = await exportChart(doc, output);
   const worst = result.report.lieFactor.worst;
   if (flags.json) {
-    io.stdout(JSON.stringify({ output, rebuilt: mode, document: doc, before: report.readings, lieFactor: result.report.lieFactor, pass: result.report.pass }, null, 2) + '\n');
+    const warnings = shortened.length ? [{ code: 'label-shortened', message: shortenedNote(shortened) }] : [];
+    io.stdout(JSON.stringify({ output, rebuilt: mode, document: doc, warnings, before: report.readings, lieFactor: result.report.lieFactor, pass: result.report.pass }, null, 2) + '\n');
     return EXIT.ok;
   }
   io.stdout(
     [
       `Rebuilt ${marks.length} values as a ${mode} chart of ${doc.encoding.glyph} glyphs; verified from the written file: worst lie factor ${worst === null ? 'n/a' : worst.toFixed(4)} (0.95-1.05 is faithful).`,
       `The supplied drawing read by ${report.suggested}: worst lie factor ${formatFactor(report.readings[report.suggested as 'area'].lieFactor.worst)}.`,
+      ...(shortened.length ? [`Note: ${shortenedNote(shortened)}`] : []),
       `Wrote ${flags.output}.`,
     ].join('\n') + '\n',
   );

@@ -173,12 +173,12 @@ export function AuditWorkspace({ host, onNotice, hidden = false }: { host: HostA
       const built =
         answer.kind === 'corrected'
           ? buildSheet({ supplied: loaded.sheetSource, corrected: answer.correction.svg, before: answer.correction.before, after: answer.correction.after, reading: answer.correction.reading })
-          : buildRedrawSheet({ supplied: loaded.sheetSource, redrawn: answer.svg, before: report, reading, redrawnLieFactor: answer.lieFactor, names });
+          : buildRedrawSheet({ supplied: loaded.sheetSource, redrawn: answer.svg, before: report, reading, redrawnLieFactor: answer.lieFactor });
       return { svg: built.svg, notes: built.warnings.map((w) => w.message) };
     } catch (e) {
       return { svg: `error:${messageOf(e)}`, notes: [] };
     }
-  }, [loaded, report, reading, answer, names]);
+  }, [loaded, report, reading, answer]);
   const sheetSvg = sheet?.svg ?? null;
 
   const exportSheet = async (format: 'svg' | 'png') => {

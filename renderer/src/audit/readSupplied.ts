@@ -2,6 +2,7 @@
 // first, the kind from the bytes rather than the name, SVG as strict UTF-8, and an image's pixel
 // count from its header before a single pixel is decoded.
 import { DEFAULT_AUDIT_LIMITS } from '../../../shared-core/audit/auditLimits';
+import { decodeSvgBytes } from '../../../shared-core/audit/decodeSvgBytes';
 import { RASTER_IMPORT_LIMITS, readJpegSize, sniffKind, type RasterImage } from '../../../shared-core/audit/rasterHeaders';
 import { TallyError } from '../../../shared-core/errors';
 import { readPngSize } from '../../../shared-core/png';
@@ -14,17 +15,8 @@ function mb(n: number): string {
   return `${(n / 1_000_000).toFixed(1)} MB`;
 }
 
-/** Strict UTF-8 (a leading byte-order mark is dropped): a file with invalid bytes is refused, not patched. */
-export function decodeSvgText(bytes: Uint8Array): string {
-  if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) {
-    throw new TallyError('svg-malformed', 'The SVG is saved as UTF-16 text; save it as UTF-8 and try again.');
-  }
-  try {
-    return new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(bytes);
-  } catch {
-    throw new TallyError('svg-malformed', 'The SVG file contains bytes that are not valid UTF-8 text; save it as UTF-8 and try again.');
-  }
-}
+/** Strict UTF-8 (a leading byte-order mark is dropped), the same decoding as the command line's. */
+export const decodeSvgText = decodeSvgBytes;
 
 /** Checks the bytes and says what they are; images are sized from their headers but not decoded yet. */
 export function classifySupplied(name: string, bytes: Uint8Array): { kind: 'svg'; text: string } | { kind: 'png' | 'jpeg'; widthPx: number; heightPx: number } {

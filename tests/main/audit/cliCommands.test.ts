@@ -154,3 +154,28 @@ describe('tallyglyph correct --rebuild', () => {
     expect(fs.existsSync(out)).toBe(false);
   });
 });
+
+describe('tallyglyph correct --rebuild with long labels', () => {
+  it('shortens a label past the 120-character chart limit at a grapheme boundary, with an ellipsis, and says so', async () => {
+    // Invented: an element id of 150 characters (a layout program's generated name) whose 119th
+    // character begins a flag (two regional indicators, one grapheme: Unicode UAX #29), so a cut by
+    // code points alone would split it.
+    const longId = 'crate-' + 'a'.repeat(112) + '\u{1F1F3}\u{1F1F4}' + 'b'.repeat(30);
+    const svg =
+      '<svg xmlns="http://www.w3.org/2000/svg" width="100" height="100" viewBox="0 0 100 100">' +
+      `<rect id="${longId}" x="10" y="60" width="20" height="30"/><rect id="short" x="50" y="30" width="20" height="60"/></svg>`;
+    fs.writeFileSync(path.join(dir, 'long-labels.svg'), svg);
+    const r = await cli(['correct', 'long-labels.svg', '--marks', `${longId},short`, '--values', '3,6', '--rebuild', 'repeat', '--unit', '1', '-o', 'long.svg', '--json'], dir);
+    expect(r.code, r.err).toBe(0);
+    const j = JSON.parse(r.out);
+    const label: string = j.document.data[0].label;
+    // 120 code points at most (the chart schema counts code points), the flag dropped whole, an ellipsis at the end.
+    expect([...label].length).toBeLessThanOrEqual(120);
+    expect(label).toBe('crate-' + 'a'.repeat(112) + '…');
+    expect(j.document.data[1].label).toBe('short');
+    expect(j.warnings.map((w: { message: string }) => w.message).join(' ')).toMatch(/1 label was longer than a chart label may be \(120 characters\) and shortened/);
+    expect(verifySvg(fs.readFileSync(path.join(dir, 'long.svg'), 'utf8')).pass).toBe(true);
+    const text = await cli(['correct', 'long-labels.svg', '--marks', `${longId},short`, '--values', '3,6', '--rebuild', 'repeat', '--unit', '1', '-o', 'long2.svg'], dir);
+    expect(text.out).toMatch(/^Note: 1 label was longer than a chart label may be/m);
+  });
+});

@@ -4,14 +4,10 @@ import { describe, expect, it } from 'vitest';
 import { command } from '../../../main/cli/commands/check';
 import { command as render } from '../../../main/cli/commands/render';
 import { capture, runTallyglyph } from '../../helpers/cli';
-import { folderPerTest } from '../../helpers/tempDirs';
+import { docFolder, roundedToWholeGlyphs } from './cliSetup';
 
-const tmp = folderPerTest('tallyglyph-check-');
-
-function writeDoc(name: string, doc: unknown): string {
-  fs.writeFileSync(path.join(tmp.dir, name), typeof doc === 'string' ? doc : JSON.stringify(doc));
-  return name;
-}
+const tmp = docFolder('tallyglyph-check-');
+const writeDoc = tmp.writeDoc;
 
 // Invented: ferry fare income in two survey years, in nominal euros, no source; the two-year advice dismissed.
 const FARES = {
@@ -26,18 +22,8 @@ const FARES = {
   dismissed: [{ code: 'context-thin', reason: 'The brief compares two survey years.' }],
 };
 
-// 12 and 27 at 10 per whole glyph are drawn as 1 and 3 glyphs: lie factor (3 - 1) / (27/12 - 1) = 1.6 (Tufte 1983, p. 57).
-const ROUNDED = {
-  format: 'tallyglyph.chart/1',
-  title: 'Rounded to whole glyphs',
-  source: 'Invented test data',
-  data: [
-    { label: 'A', value: 12 },
-    { label: 'B', value: 27 },
-  ],
-  encoding: { mode: 'repeat', glyph: 'bike', unit: 10, unitName: 'bikes', rounding: 'whole' },
-  page: { width: 150, height: 100, unit: 'mm' },
-};
+// 12 and 27 at 10 per whole glyph are drawn as 1 and 3 glyphs: lie factor 1.6 (Tufte 1983, p. 57).
+const ROUNDED = roundedToWholeGlyphs({ source: 'Invented test data', encoding: { unitName: 'bikes' } });
 
 describe('tallyglyph check', () => {
   it('prints each open finding with its fix, lists the dismissed one with its reason, and exits 0 when nothing blocks', async () => {

@@ -6,26 +6,13 @@ import { DEMO_CHARTS } from '../../../shared-core/demo/demoCharts';
 import { verifySvg } from '../../../shared-core/integrity/index';
 import { capture, runTallyglyph } from '../../helpers/cli';
 import { hasPngcheck, pngcheckPhys } from '../../helpers/independent';
-import { folderPerTest } from '../../helpers/tempDirs';
+import { docFolder, roundedToWholeGlyphs } from './cliSetup';
 
-const tmp = folderPerTest('tallyglyph-render-');
-
-function writeDoc(name: string, doc: unknown): string {
-  fs.writeFileSync(path.join(tmp.dir, name), typeof doc === 'string' ? doc : JSON.stringify(doc));
-  return name;
-}
+const tmp = docFolder('tallyglyph-render-');
+const writeDoc = tmp.writeDoc;
 
 const BIKES = DEMO_CHARTS[0].document;
-const ROUNDED = {
-  format: 'tallyglyph.chart/1',
-  title: 'Rounded to whole glyphs',
-  data: [
-    { label: 'A', value: 12 },
-    { label: 'B', value: 27 },
-  ],
-  encoding: { mode: 'repeat', glyph: 'bike', unit: 10, rounding: 'whole' },
-  page: { width: 150, height: 100, unit: 'mm' },
-};
+const ROUNDED = roundedToWholeGlyphs();
 
 describe('tallyglyph render', () => {
   it('writes a verified SVG and says what it measured', async () => {

@@ -11,13 +11,14 @@ import { hasPngcheck, hasRsvg, pngcheckPhys, rsvgRender } from '../../helpers/in
 import { CHROMIUM, SHOTS, haveChromium, openApp, readDownload, screenshot, startBrowserApp, type BrowserApp } from './helpers/browserApp';
 
 // An invented mock-up: pots of tea poured on two afternoons, 20 and 30, drawn as bars 40 and 100
-// units tall (the same width), each with its value printed under it.
+// units tall (the same width), each with its value printed under it, and a heading in a font we do not bundle.
 const TEA_SVG = `<svg xmlns="http://www.w3.org/2000/svg" width="160mm" height="120mm" viewBox="0 0 160 120">
   <title>Pots of tea poured per afternoon</title>
   <rect id="bar-monday" x="30" y="60" width="30" height="40" fill="#c0572b"/>
   <text x="45" y="110" font-size="6" text-anchor="middle">20</text>
   <rect id="bar-friday" x="100" y="0" width="30" height="100" fill="#c0572b"/>
   <text x="115" y="110" font-size="6" text-anchor="middle">30</text>
+  <text x="5" y="10" font-family="Futura" font-size="6">Tea room</text>
 </svg>
 `;
 
@@ -138,8 +139,11 @@ describe.skipIf(!haveChromium)(`the audit workspace in Chromium (skipped when ${
     await page.getByTestId('audit-correct').click();
     await page.getByTestId('audit-answer').waitFor();
     expect(await page.getByTestId('audit-answer-caption').textContent()).toBe('Corrected for the length reading · lie factor 1.00');
-    // The drawing's own labels travel as live text: the sheet says so rather than dropping them silently.
-    expect(await page.getByTestId('sheet-note').allTextContents()).toContain("The supplied drawing's own text is copied as text, not outlines: it needs its fonts, and the sheet's PNG leaves it out.");
+    // The drawing's own labels (no font named) are drawn in the bundled sans; the heading in a font that is
+    // not bundled is left out, and the app says which text and which font.
+    expect(await page.getByTestId('sheet-note').allTextContents()).toContain(
+      'The sheet leaves out one text of the supplied drawing it cannot show as drawn: "Tea room" in "Futura" (that font is not bundled). Only Noto Sans and the generic sans-serif are bundled; check these words against the supplied file.',
+    );
     await screenshot(page, 'audit-02-svg-corrected');
 
     const [download] = await Promise.all([page.waitForEvent('download'), page.getByTestId('audit-sheet-svg').click()]);
@@ -149,6 +153,9 @@ describe.skipIf(!haveChromium)(`the audit workspace in Chromium (skipped when ${
     expect(sheet).toContain('id="supplied-bar-friday"');
     expect(sheet).toContain('id="corrected-bar-friday"');
     expect(sheet).not.toContain('<script');
+    // The value labels are outlines in both panels (the words kept as each group's title), never live text.
+    expect(sheet).not.toMatch(/<text/);
+    expect(sheet.match(/<title>20<\/title><g transform="translate\(/g)?.length).toBe(2);
     if (hasRsvg) {
       // Independent renderer (rsvg-convert) over the whole sheet (278 mm wide: two 120 mm frames, 14 mm
       // apart, 12 mm margins). The drawing (160 × 120 units) fills each frame at 0.75 mm per unit; the
@@ -236,5 +243,16 @@ describe.skipIf(!haveChromium)(`the audit workspace in Chromium (skipped when ${
     await expect.poll(() => page.getByTestId('notice').textContent()).toBe('Could not audit notes.svg: "notes.svg" is not an SVG, PNG or JPEG file.');
     await openSupplied(path.join(dir, 'tea-mockup.svg'));
     expect(await page.locator('[data-testid=audit-outlines] .audit-mark').count()).toBe(2);
+  }, 60_000);
+  // These two run in order: the suite shares one browser context, and storage must not leak between tests.
+  it('leaves unsaved chart work behind (a recovery copy in local storage)', async () => {
+    await page.locator('#chart-title').fill('Left behind by an earlier test');
+    await expect.poll(() => page.evaluate(() => localStorage.getItem('tallyglyph.recovery/1')), { timeout: 10_000 }).toContain('Left behind by an earlier test');
+  }, 60_000);
+
+  it('the next test opens without the recovery offer: each test starts with empty storage', async () => {
+    await page.locator('#chart-title').waitFor();
+    expect(await page.evaluate(() => localStorage.getItem('tallyglyph.recovery/1'))).toBeNull();
+    expect(await page.getByTestId('recovery-banner').count()).toBe(0);
   }, 60_000);
 });

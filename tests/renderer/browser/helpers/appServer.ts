@@ -7,6 +7,7 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { preview, type PreviewServer } from 'vite';
+import { beforeEach } from 'vitest';
 
 export const REPO = fileURLToPath(new URL('../../../../', import.meta.url));
 export const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
@@ -21,6 +22,22 @@ export interface AppServer {
   base: string;
   close(): Promise<void>;
 }
+
+/** Browsers started by startApp in this test file and not yet closed. */
+const running = new Set<Browser>();
+
+/**
+ * Every test starts with empty storage: a suite that shares one context across its tests would otherwise
+ * carry the app's local storage (the recovery copy of unsaved work, the dismissed caution) from one test
+ * into the next, and a later test would open on the recovery offer meant for the recovery test alone.
+ * Registered when a test file imports this module, so it runs before each test of that file, ahead of the
+ * file's own beforeEach that opens the page; storage kept within one test (kill the page, reopen) is untouched.
+ */
+beforeEach(async () => {
+  for (const browser of running) {
+    for (const context of browser.contexts()) await context.setStorageState({ cookies: [], origins: [] });
+  }
+});
 
 /** Builds the renderer (in a child process, so NODE_ENV is production), serves it and starts Chromium. */
 export async function startApp(): Promise<AppServer> {
@@ -42,11 +59,13 @@ export async function startApp(): Promise<AppServer> {
   const base = server.resolvedUrls?.local[0];
   if (!base) throw new Error('vite preview did not say where it serves the app.');
   const browser = await chromium.launch({ executablePath: CHROMIUM, args: CHROMIUM_ARGS });
+  running.add(browser);
   return {
     server,
     browser,
     base,
     async close() {
+      running.delete(browser);
       await browser.close();
       await server.close();
       fs.rmSync(outDir, { recursive: true, force: true });
