@@ -49,7 +49,7 @@ function passes(doc: unknown): string {
 
 describe('options left out draw exactly what was drawn before them', () => {
   it('renders every demo byte for byte the same with the default of every option written out', () => {
-    const defaults = { groupEvery: 0, labelPosition: 'beside', labelAlign: 'end', sort: 'given', font: 'sans', titleSizePt: (5 * 72) / 25.4, sourceSizePt: (2.5 * 72) / 25.4 };
+    const defaults = { groupEvery: 0, labelPosition: 'beside', labelAlign: 'start', sort: 'given', font: 'sans', titleSizePt: (5 * 72) / 25.4, sourceSizePt: (2.5 * 72) / 25.4 };
     for (const demo of DEMO_CHARTS) {
       const plain = renderChart(demo.document).svg;
       const explicit = renderChart({ ...demo.document, layout: { ...demo.document.layout, ...defaults } }).svg;
