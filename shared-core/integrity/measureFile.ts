@@ -125,6 +125,12 @@ export interface MeasuredFile {
   /** Stacks of a length chart, in mark order (empty for other readings). */
   stacks: StackMeasure[];
   chartPitchMm: number | null;
+  /**
+   * The stack grouping the file declares (data-group-every, data-group-gap-mm): one extra gap after every 5 or
+   * 10 slots. `allowed` is false when the declared values are outside what the writer can produce; then no
+   * grouping is taken out and the glyphs must be evenly spaced.
+   */
+  stackGrouping: { every: number; gapMm: number; allowed: boolean } | null;
   marks: MarkMeasurement[];
   lieFactors: LieFactorReport;
   /** The gate's verdict on the lie factors: its findings are the lie-factor checks' findings. */
@@ -327,7 +333,8 @@ export function measureFile(svgText: string, opts: VerifyOptions = {}): Measured
   // ---- stack pitch, measured from the positions of successive slots
   const stacks: StackMeasure[] = [];
   let chartPitch: number | null = null;
-  if (reading === 'length') chartPitch = measureStacks(markInks, stacks, notes, summary);
+  const stackGrouping = reading === 'length' ? groupingOf(file) : null;
+  if (reading === 'length') chartPitch = measureStacks(markInks, stacks, notes, summary, stackGrouping?.allowed ? stackGrouping : null);
   const pitchByMark = new Map(stacks.map((st) => [st.mark, st.fit?.pitchMm ?? null] as const));
 
   // ---- measure each mark under the reading
@@ -413,6 +420,7 @@ export function measureFile(svgText: string, opts: VerifyOptions = {}): Measured
     unitByMark,
     stacks,
     chartPitchMm: chartPitch,
+    stackGrouping,
     marks,
     lieFactors: lf,
     verdict,
@@ -518,7 +526,25 @@ function unionInks(inks: Ink[], inkOfRegion: (region: Region) => Ink): Ink {
  * Pitch of each stack from the centres of its full glyphs against their slots, and where each stack starts
  * along its axis; the checks judge slots, even spacing and the shared baseline from these.
  */
-function measureStacks(markInks: MarkInk[], out: StackMeasure[], notes: string[], summary: ChartSummary | null): number | null {
+/** Group sizes a stack may be drawn in: fives and tens, as the chart document allows. */
+const GROUP_SIZES = [5, 10];
+
+function groupingOf(file: ChartSvgFile): MeasuredFile['stackGrouping'] {
+  const g = file.grouping;
+  if (!g) return null;
+  const allowed = GROUP_SIZES.includes(g.every) && Number.isFinite(g.gapMm) && g.gapMm > 0 && g.gapMm <= 100;
+  return { every: g.every, gapMm: g.gapMm, allowed };
+}
+
+function measureStacks(
+  markInks: MarkInk[],
+  out: StackMeasure[],
+  notes: string[],
+  summary: ChartSummary | null,
+  grouping: { every: number; gapMm: number } | null,
+): number | null {
+  // How much further out than an even pitch a slot stands: one group gap per finished group below it.
+  const groupShiftMm = grouping ? (slot: number) => Math.floor(slot / grouping.every) * grouping.gapMm : null;
   const centres = new Map<ChartSvgMark, { slot: number; x: number; y: number; box: Box }[]>();
   let missingSlots = false;
   for (const mi of markInks) {
@@ -542,27 +568,31 @@ function measureStacks(markInks: MarkInk[], out: StackMeasure[], notes: string[]
     const pts = centres.get(stack.mark) ?? [];
     const distinct = new Set(pts.map((p) => p.slot)).size;
     if (distinct < 2) return;
-    const fit = (key: 'x' | 'y') => {
+    const line = (value: (p: (typeof pts)[number]) => number) => {
       const n = pts.length;
       const mx = pts.reduce((a, p) => a + p.slot, 0) / n;
-      const my = pts.reduce((a, p) => a + p[key], 0) / n;
+      const my = pts.reduce((a, p) => a + value(p), 0) / n;
       let sxy = 0;
       let sxx = 0;
       for (const p of pts) {
-        sxy += (p.slot - mx) * (p[key] - my);
+        sxy += (p.slot - mx) * (value(p) - my);
         sxx += (p.slot - mx) ** 2;
       }
       const slope = sxy / sxx;
       return { slope, start: my - slope * mx };
     };
-    const fx = fit('x');
-    const fy = fit('y');
-    const axis: 'x' | 'y' = Math.abs(fy.slope) >= Math.abs(fx.slope) ? 'y' : 'x';
-    const along = axis === 'y' ? fy : fx;
-    const across = axis === 'y' ? fx : fy;
+    // A grouped stack: each slot stands one group gap further out per group below it, along the stack's axis
+    // and in its direction (the sign of the uncorrected slope); that is taken out before the even-pitch fit.
+    const rx = line((p) => p.x);
+    const ry = line((p) => p.y);
+    const axis: 'x' | 'y' = Math.abs(ry.slope) >= Math.abs(rx.slope) ? 'y' : 'x';
+    const sign = Math.sign((axis === 'y' ? ry : rx).slope);
+    const at = (p: (typeof pts)[number], key: 'x' | 'y') => (groupShiftMm && key === axis ? p[key] - sign * groupShiftMm(p.slot) : p[key]);
+    const along = groupShiftMm ? line((p) => at(p, axis)) : axis === 'y' ? ry : rx;
+    const across = axis === 'y' ? rx : ry;
     const off = Math.max(
-      ...pts.map((p) => Math.abs(p[axis] - (along.start + along.slope * p.slot))),
-      ...pts.map((p) => Math.abs(p[axis === 'y' ? 'x' : 'y'] - (across.start + across.slope * p.slot))),
+      ...pts.map((p) => Math.abs(at(p, axis) - (along.start + along.slope * p.slot))),
+      ...pts.map((p) => Math.abs(at(p, axis === 'y' ? 'x' : 'y') - (across.start + across.slope * p.slot))),
     );
     stack.fit = { pitchMm: Math.abs(along.slope), startMm: along.start, axis, offMm: off };
   });
@@ -590,7 +620,7 @@ function measureStacks(markInks: MarkInk[], out: StackMeasure[], notes: string[]
       const hi = axis === 'y' ? first.box.y + first.box.height : first.box.x + first.box.width;
       const edge = dir < 0 ? hi : lo;
       const pitch = stack.fit?.pitchMm ?? chartPitch;
-      stack.baselineMm = edge - dir * pitch * first.slot;
+      stack.baselineMm = edge - dir * (pitch * first.slot + (groupShiftMm ? groupShiftMm(first.slot) : 0));
     }
   }
   return chartPitch;

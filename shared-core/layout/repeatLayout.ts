@@ -5,8 +5,8 @@ import type { CutDirection } from '../glyph';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
 import { chooseGlyphSize } from './fitSize';
 import { isTallyError } from '../errors';
-import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
-import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { labelLines, valueLabelText, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
+import { groupGapMm, groupShiftMm, keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
 import { resolveUnit, withFittingUnit, type GlyphCount } from './resolveUnit';
@@ -18,6 +18,8 @@ const LABEL_PAD_MM = 3;
 /** Widest a category label may be before it breaks onto more lines, as a share of the chart width. */
 const LABEL_SHARE = 0.3;
 const VALUE_PAD_MM = 2;
+/** Space between a label set above its row and the row's glyphs (common practice, no source). */
+const LABEL_ABOVE_GAP_MM = 1;
 const EPS_MM = 1e-9;
 
 interface Grid {
@@ -28,18 +30,38 @@ interface Grid {
   columns: number;
 }
 
-function gridAt(glyphs: readonly ResolvedGlyph[], glyphSizeMm: number, gapRatio: number): Omit<Grid, 'columns'> {
+/** Columns grouped in fives or tens (layout.groupEvery): 0 for none, and the extra gap after each group. */
+interface Grouping {
+  every: number;
+  groupMm: number;
+}
+
+function gridAt(glyphs: readonly ResolvedGlyph[], glyphSizeMm: number, gapRatio: number, every = 0): Omit<Grid, 'columns'> & Grouping {
   const f = sizePerRootInk(glyphs);
   const root = glyphSizeMm / f.largest;
-  return { cellWMm: root * f.width, cellHMm: root * f.height, gapMm: gapRatio * glyphSizeMm, inkMm2: root * root };
+  const gapMm = gapRatio * glyphSizeMm;
+  return { cellWMm: root * f.width, cellHMm: root * f.height, gapMm, inkMm2: root * root, every, groupMm: groupGapMm(gapMm, glyphSizeMm) };
 }
 
-function autoColumns(widthMm: number, cellWMm: number, gapMm: number, most: number): number {
-  return Math.max(1, Math.min(Math.max(1, most), Math.floor((widthMm + gapMm + EPS_MM) / (cellWMm + gapMm))));
+function autoColumns(widthMm: number, g: { cellWMm: number; gapMm: number } & Partial<Grouping>, most: number): number {
+  let columns = Math.max(1, Math.min(Math.max(1, most), Math.floor((widthMm + g.gapMm + EPS_MM) / (g.cellWMm + g.gapMm))));
+  const every = g.every ?? 0;
+  if (every > 0) {
+    // Group gaps take room too; and a row that wraps holds whole groups, so groups line up down the rows.
+    while (columns > 1 && gridWidthMm(columns, g) > widthMm + EPS_MM) columns--;
+    if (most > columns && columns >= every) columns -= columns % every;
+  }
+  return columns;
 }
 
-function gridWidthMm(columns: number, g: { cellWMm: number; gapMm: number }): number {
-  return columns * g.cellWMm + (columns - 1) * g.gapMm;
+function gridWidthMm(columns: number, g: { cellWMm: number; gapMm: number } & Partial<Grouping>): number {
+  return columns * g.cellWMm + (columns - 1) * g.gapMm + groupShiftMm(columns - 1, g.every ?? 0, g.groupMm ?? 0);
+}
+
+/** Left edge of the cell in reading column `k` from the grid's left, mirrored for right-to-left rows. */
+function columnXMm(k: number, columns: number, g: { cellWMm: number; gapMm: number } & Grouping, direction: CutDirection): number {
+  const fromStart = k * (g.cellWMm + g.gapMm) + groupShiftMm(k, g.every, g.groupMm);
+  return direction === 'rtl' ? gridWidthMm(columns, g) - fromStart - g.cellWMm : fromStart;
 }
 
 function cutDirection(direction: string): CutDirection {
@@ -70,7 +92,7 @@ export function repeatLayout(ctx: LayoutContext): ModeResult {
 }
 
 function legendSentence(ctx: LayoutContext, unit: number): string {
-  const text = unitLegendText(unit, ctx.spec.encoding.unitName ?? '');
+  const text = unitLegendText(unit, ctx.spec.encoding.unitName ?? '', undefined, ctx.spec.layout.keyWording);
   return ctx.spec.encoding.rounding === 'whole' ? `${text} (counts rounded to whole glyphs)` : text;
 }
 
@@ -95,30 +117,36 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   const direction = cutDirection(layout.direction);
   const lm = lineMetrics(labelSizeMm);
   const vm = lineMetrics(valueSizeMm);
-  const valueTexts = rows.map((r) => formatValue(r.value));
-  // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
-  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, labelSizeMm) : []));
-  const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
+  const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
+  // Labels beside their rows (the default) take a column; labels above their rows take a line over each row.
+  const above = layout.labels && layout.labelPosition === 'above';
   const valueColMm = layout.valueLabels ? VALUE_PAD_MM + Math.max(...valueTexts.map((t) => textWidthMm(t, valueSizeMm))) : 0;
-  const gridXMm = box.x + labelColMm;
+  // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
+  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, above ? Math.max(1, box.width - valueColMm) : box.width * LABEL_SHARE, labelSizeMm) : []));
+  const labelColMm = layout.labels && !above ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
+  const labelAboveMm = labelText.map((l) => (above ? linesHeightMm(l.length, lm) + LABEL_ABOVE_GAP_MM : 0));
+  // Right-to-left rows end at the left, so their values stand between the labels and the grid.
+  const gridXMm = box.x + labelColMm + (direction === 'rtl' ? valueColMm : 0);
   const gridRoomMm = box.width - labelColMm - valueColMm;
   const slots = counts.map(slotsOf);
   const mostSlots = Math.max(1, ...slots);
   const glyphs = [...new Set(rows.map((r) => r.glyph))];
   const keys = keyGlyphs(ctx);
   const keyFactor = sizePerRootInk(keys);
-  const firstLineMm = Math.max(layout.labels ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
+  const firstLineMm = Math.max(layout.labels && !above ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
 
 
   const plan = (sizeMm: number) => {
-    const g = gridAt(glyphs, sizeMm, layout.gapRatio);
-    const columns = layout.columns === 'auto' ? autoColumns(gridRoomMm, g.cellWMm, g.gapMm, mostSlots) : layout.columns;
+    const g = gridAt(glyphs, sizeMm, layout.gapRatio, layout.groupEvery ?? 0);
+    const columns = layout.columns === 'auto' ? autoColumns(gridRoomMm, g, mostSlots) : layout.columns;
     const offsetMm = Math.max(0, (firstLineMm - g.cellHMm) / 2);
     const rowsPer = slots.map((n) => Math.max(1, Math.ceil(n / columns)));
     // The first label line is centred on the first glyph row; further lines hang below it.
     const labelTopMm = Math.max(0, offsetMm + g.cellHMm / 2 + lm.capHeightMm / 2 - lm.ascentMm);
     const bandMm = rowsPer.map((r, i) =>
-      Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
+      above
+        ? labelAboveMm[i] + Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, layout.valueLabels ? vm.boxHeightMm : 0)
+        : Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
     );
     const bandGapMm = g.gapMm + 1;
     const keyHeightMm = Math.sqrt(g.inkMm2) * keyFactor.height;
@@ -147,11 +175,11 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   rows.forEach((row, i) => {
     const count = counts[i];
     const shape = shapeFor(row.glyph);
-    const rowTopMm = topMm + p.offsetMm;
+    const rowTopMm = topMm + labelAboveMm[i] + p.offsetMm;
     const pieces: SceneGlyph[] = [];
     for (let j = 0; j < slots[i]; j++) {
-      const { row: r, column: c } = slotCell(j, p.columns, p.rowsPer[i], direction);
-      const x = gridXMm + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+      const { row: r } = slotCell(j, p.columns, p.rowsPer[i], direction);
+      const x = gridXMm + columnXMm(j % p.columns, p.columns, p, direction) + (p.cellWMm - shape.widthMm) / 2;
       const y = rowTopMm + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
       if (j < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1 });
       else pieces.push({ region: book.band(shape, 0, count.partial, direction, x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial });
@@ -159,14 +187,32 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces, intended: count.drawn });
 
     const baselineMm = rowTopMm + p.cellHMm / 2 + lm.capHeightMm / 2;
-    if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: labelSizeMm, owner: row.id }, labelText[i], lm.lineHeightMm));
+    if (layout.labels) {
+      // Beside: in the label column, flush left (as before) or flush against the marks ("end"). Above: over the
+      // grid, from its start or to its end.
+      const alignEnd = layout.labelAlign === 'end';
+      const place = above
+        ? { xMm: alignEnd ? gridXMm + fullWidthMm : gridXMm, yMm: topMm + lm.ascentMm }
+        : { xMm: alignEnd ? box.x + labelColMm - LABEL_PAD_MM : box.x, yMm: baselineMm };
+      texts.push(...makeLines({ role: 'label', text: row.label, ...place, sizeMm: labelSizeMm, anchor: alignEnd ? 'end' : 'start', owner: row.id }, labelText[i], lm.lineHeightMm));
+    }
     if (layout.valueLabels) {
-      // On one left-to-right row the value follows the ink of its last glyph, like a bar-end label (a partial
-      // glyph's cut edge, not its empty slot); otherwise it stands after the grid.
-      const oneRow = slots[i] <= p.columns && direction === 'ltr';
-      const inkEndMm = pieces.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
-      const endMm = oneRow ? (Number.isFinite(inkEndMm) ? inkEndMm : gridXMm) : gridXMm + fullWidthMm;
-      texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
+      // The value follows the ink of the category's last glyph, like a bar-end label (a partial glyph's cut
+      // edge, not its empty slot), on the grid row that glyph stands in: after the ink's right edge, or for
+      // right-to-left rows before its left edge.
+      const lastSlot = slots[i] - 1;
+      const lastRow = lastSlot >= 0 ? slotCell(lastSlot, p.columns, p.rowsPer[i], direction).row : 0;
+      const inRow = lastSlot >= 0 ? pieces.slice(lastSlot - (lastSlot % p.columns)) : [];
+      const rowBaselineMm = baselineMm + lastRow * (p.cellHMm + p.gapMm);
+      if (direction === 'rtl') {
+        const inkStartMm = inRow.reduce((start, g) => g.region.reduce((s, ring) => ring.reduce((x, pt) => Math.min(x, pt.x), s), start), Infinity);
+        const startMm = Number.isFinite(inkStartMm) ? inkStartMm : gridXMm + fullWidthMm;
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.min(gridXMm + fullWidthMm, startMm) - VALUE_PAD_MM, yMm: rowBaselineMm, sizeMm: valueSizeMm, anchor: 'end', color: INK_COLORS.muted, owner: row.id }));
+      } else {
+        const inkEndMm = inRow.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
+        const endMm = Number.isFinite(inkEndMm) ? inkEndMm : gridXMm;
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: rowBaselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
+      }
     }
     topMm += p.bandMm[i] + bandGapMm;
   });
@@ -201,7 +247,7 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const slotCount = total > 1e-9 ? Math.ceil(total - 1e-9) : 0;
 
   const lm = lineMetrics(TEXT_SIZE_MM.label);
-  const valueTexts = rows.map((r) => formatValue(r.value));
+  const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
   const listed = layout.labels || layout.valueLabels;
   const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, TEXT_SIZE_MM.label, 700) : []));
   const labelWMm = Math.max(0, ...labelText.map((l) => linesWidthMm(l, TEXT_SIZE_MM.label, 700)));
@@ -209,14 +255,14 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const valueWMm = layout.valueLabels ? Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
 
   const plan = (sizeMm: number) => {
-    const g = gridAt([glyph], sizeMm, layout.gapRatio);
+    const g = gridAt([glyph], sizeMm, layout.gapRatio, layout.groupEvery ?? 0);
     // The key list at the right: a unit glyph in each category's colour, its label and value.
     const listWMm = listed ? 4 + g.cellWMm + 2 + labelWMm + (layout.valueLabels ? (layout.labels ? 2 : 0) + valueWMm : 0) : 0;
     const roomMm = box.width - listWMm;
-    let columns = layout.columns === 'auto' ? autoColumns(roomMm, g.cellWMm, g.gapMm, slotCount) : layout.columns;
+    let columns = layout.columns === 'auto' ? autoColumns(roomMm, g, slotCount) : layout.columns;
     const gridRows = Math.max(1, Math.ceil(slotCount / columns));
-    // As few columns as keep the same number of rows: a less ragged last row.
-    if (layout.columns === 'auto' && slotCount > 0) columns = Math.ceil(slotCount / gridRows);
+    // As few columns as keep the same number of rows: a less ragged last row (grouped rows keep whole groups).
+    if (layout.columns === 'auto' && slotCount > 0 && !(g.every > 0 && gridRows > 1)) columns = Math.ceil(slotCount / gridRows);
     const gridHMm = gridRows * g.cellHMm + (gridRows - 1) * g.gapMm;
     const entryMm = textBlockMm.map((t) => Math.max(g.cellHMm, t));
     const listHMm = listed ? entryMm.reduce((a, b) => a + b, 0) + (rows.length - 1) * g.gapMm : 0;
@@ -242,8 +288,8 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   // Runs are contiguous and in order, so one cursor finds the runs touching each slot (slots + rows, not slots × rows).
   let first = 0;
   for (let j = 0; j < slotCount; j++) {
-    const { row: r, column: c } = slotCell(j, p.columns, p.gridRows, direction);
-    const x = originX + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+    const { row: r } = slotCell(j, p.columns, p.gridRows, direction);
+    const x = originX + columnXMm(j % p.columns, p.columns, p, direction) + (p.cellWMm - shape.widthMm) / 2;
     const y = originY + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
     while (first < rows.length && starts[first] + counts[first].drawn <= j) first++;
     for (let i = first; i < rows.length && starts[i] < j + 1; i++) {
@@ -267,9 +313,13 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
       legendKeys.push({ glyph: glyph.name, region: book.full(shape, listXMm + (p.cellWMm - shape.widthMm) / 2, keyYMm).region, color: row.color, unitValue: unit, unitName: spec.encoding.unitName ?? '' });
       const baselineMm = topMm + (entryMm - textBlockMm[i]) / 2 + lm.ascentMm;
       const textXMm = listXMm + p.cellWMm + 2;
-      if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: textXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, weight: 700, owner: row.id }, labelText[i], lm.lineHeightMm));
+      const labelLinesDrawn = layout.labels ? makeLines({ role: 'label', text: row.label, xMm: textXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, weight: 700, owner: row.id }, labelText[i], lm.lineHeightMm) : [];
+      texts.push(...labelLinesDrawn);
       if (layout.valueLabels) {
-        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: textXMm + (layout.labels ? labelWMm + 2 : 0), yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
+        // The value follows its own label's ink on the same line, not a column after the longest label.
+        const firstLine = labelLinesDrawn[0]?.bboxMm;
+        const valueXMm = firstLine && firstLine.width > 0 ? firstLine.x + firstLine.width + VALUE_PAD_MM : textXMm;
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: valueXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
       }
       topMm += entryMm + p.gapMm;
     });

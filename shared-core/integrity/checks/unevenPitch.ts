@@ -24,6 +24,26 @@ export const unevenPitch: FileCheck = {
         ),
       );
     }
+    // A declared grouping (data-group-every, data-group-gap-mm) is allowed for only as the writer produces it:
+    // groups of 5 or 10 with a gap no wider than one pitch, so grouping can never lengthen a stack by more.
+    const g = m.stackGrouping;
+    if (g && !g.allowed) {
+      out.push(
+        blockingFinding(
+          'uneven-pitch',
+          `The file groups its stacks every ${num(g.every)} glyphs with a ${num(g.gapMm)} mm gap; only groups of 5 or 10 with a gap of up to one glyph pitch are allowed.`,
+          'Group the glyphs in fives or tens with a gap no wider than one glyph pitch, or space them evenly.',
+        ),
+      );
+    } else if (g && m.chartPitchMm && g.gapMm > m.chartPitchMm * (1 + SAME_GLYPH_TOLERANCE)) {
+      out.push(
+        blockingFinding(
+          'uneven-pitch',
+          `The stacks are grouped with a ${num(g.gapMm)} mm gap, wider than one glyph pitch (${num(m.chartPitchMm)} mm); such gaps would lengthen the stacks.`,
+          'Group the glyphs with a gap no wider than one glyph pitch, or space them evenly.',
+        ),
+      );
+    }
     return out;
   },
 };
