@@ -211,7 +211,7 @@ export function outlineSuppliedText(el: XmlElement, style: InheritedTextStyle, a
     const line = layoutLine(face, run.text);
     if (line.warnings.some((w) => w.code === 'text-glyph-missing')) return notShown('the bundled font has no letter for some of its characters');
     const sizeUnits = run.style.sizeUnits;
-    const placed = placeLine(face, line, { sizeMm: sizeUnits, weight: run.style.weight, xMm: penX, yMm: penY, anchor: 'start', decimals: decimalsFor(sizeUnits) }, penY);
+    const placed = placeLine(face, line, { sizeMm: sizeUnits, weight: run.style.weight, family: 'sans', xMm: penX, yMm: penY, anchor: 'start', decimals: decimalsFor(sizeUnits) }, penY);
     const chunk = chunks[chunks.length - 1];
     if (placed.pathData) chunk.paths.push(run.attributes ? `<g${run.attributes}><path d="${placed.pathData}"/></g>` : `<path d="${placed.pathData}"/>`);
     chunk.advance += placed.advanceMm;
