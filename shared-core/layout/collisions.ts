@@ -3,7 +3,8 @@
 // overlaps (never below the print minimum), and warn about whatever still does.
 import type { Warning } from '../errors';
 import { boxOf, type Box } from '../geometry/region';
-import type { Scene, SceneText } from '../scene';
+import type { Scene, SceneGlyph, SceneText } from '../scene';
+import { regionBounds, type Bounds } from './glyphBook';
 import { MIN_TEXT_SIZE_MM, resizeText, textBox } from './labels';
 
 export interface LabelCollision {
@@ -20,19 +21,35 @@ export function boxesOverlap(a: Box, b: Box, clearanceMm = 0): boolean {
   return a.x < b.x + b.width + clearanceMm && b.x < a.x + a.width + clearanceMm && a.y < b.y + b.height + clearanceMm && b.y < a.y + a.height + clearanceMm;
 }
 
-/** Ink box of each mark (all its pieces together); marks with no ink are left out. */
-export function markBoxes(scene: Pick<Scene, 'marks'>): { id: string; box: Box }[] {
+/** Extremes of one piece's ink (the glyph book's, which knows shared shapes), or null for no ink. */
+export type PieceBounds = (piece: SceneGlyph) => Bounds | null;
+
+/**
+ * Ink box of each mark (all its pieces together); marks with no ink are left out. With `pieceBounds` the
+ * pieces placed by reference are not scanned point by point; the box is the same to the last bit.
+ */
+export function markBoxes(scene: Pick<Scene, 'marks'>, pieceBounds: PieceBounds = (g) => regionBounds(g.region)): { id: string; box: Box }[] {
   const out: { id: string; box: Box }[] = [];
   for (const mark of scene.marks) {
-    const box = boxOf(mark.glyphs.flatMap((g) => g.region));
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (const g of mark.glyphs) {
+      const b = pieceBounds(g);
+      if (!b) continue;
+      if (b.minX < minX) minX = b.minX;
+      if (b.minY < minY) minY = b.minY;
+      if (b.maxX > maxX) maxX = b.maxX;
+      if (b.maxY > maxY) maxY = b.maxY;
+    }
+    // As boxOf of all the points together: its width and height are taken from the same extremes.
+    const box = minX === Infinity ? boxOf([]) : { x: minX, y: minY, width: maxX - minX, height: maxY - minY };
     if (box.width > 0 && box.height > 0) out.push({ id: mark.id, box });
   }
   return out;
 }
 
-function obstacles(scene: Pick<Scene, 'marks' | 'legendKeys'>): { kind: 'mark' | 'legend-key'; other: string | number; box: Box }[] {
+function obstacles(scene: Pick<Scene, 'marks' | 'legendKeys'>, pieceBounds?: PieceBounds): { kind: 'mark' | 'legend-key'; other: string | number; box: Box }[] {
   return [
-    ...markBoxes(scene).map((m) => ({ kind: 'mark' as const, other: m.id, box: m.box })),
+    ...markBoxes(scene, pieceBounds).map((m) => ({ kind: 'mark' as const, other: m.id, box: m.box })),
     ...scene.legendKeys.map((k, i) => ({ kind: 'legend-key' as const, other: i, box: boxOf(k.region) })),
   ];
 }
@@ -55,8 +72,8 @@ const SHRINK_STEP = 0.9;
  * Texts that overlap something are shrunk step by step around their anchor until they clear it or
  * reach the print minimum; any overlap left is reported as a warning. Earlier texts win over later ones.
  */
-export function resolveLabelCollisions(scene: Pick<Scene, 'marks' | 'legendKeys' | 'texts'>): { texts: SceneText[]; warnings: Warning[] } {
-  const obs = obstacles(scene).map((o) => o.box);
+export function resolveLabelCollisions(scene: Pick<Scene, 'marks' | 'legendKeys' | 'texts'>, pieceBounds?: PieceBounds): { texts: SceneText[]; warnings: Warning[] } {
+  const obs = obstacles(scene, pieceBounds).map((o) => o.box);
   const placed: Box[] = [];
   const texts: SceneText[] = [];
   const warnings: Warning[] = [];

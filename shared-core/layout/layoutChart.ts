@@ -154,7 +154,7 @@ export function layoutChart(spec: ChartSpec): Scene {
   const sharedGrid = mode === 'repeat' && spec.encoding.arrangement === 'shared-grid';
   if ((mode === 'repeat' && !sharedGrid) || mode === 'stack') warnings.push(...sliverWarnings(spec, result.marks, result.unit));
 
-  const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] });
+  const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] }, (g) => book.pieceBounds(g));
   warnings.push(...resolved.warnings);
 
   const summary: ChartSummary = {

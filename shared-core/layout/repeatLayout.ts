@@ -153,7 +153,7 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
       const { row: r, column: c } = slotCell(j, p.columns, p.rowsPer[i], direction);
       const x = gridXMm + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
       const y = rowTopMm + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
-      if (j < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1 });
+      if (j < count.full) pieces.push(book.fullPiece(shape, x, y, { glyph: row.glyph.name, part: 'full', fraction: 1 }));
       else pieces.push({ region: book.band(shape, 0, count.partial, direction, x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial });
     }
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces, intended: count.drawn });
@@ -164,7 +164,7 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
       // On one left-to-right row the value follows the ink of its last glyph, like a bar-end label (a partial
       // glyph's cut edge, not its empty slot); otherwise it stands after the grid.
       const oneRow = slots[i] <= p.columns && direction === 'ltr';
-      const inkEndMm = pieces.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
+      const inkEndMm = pieces.reduce((end, g) => Math.max(end, book.pieceBounds(g)?.maxX ?? -Infinity), -Infinity);
       const endMm = oneRow ? (Number.isFinite(inkEndMm) ? inkEndMm : gridXMm) : gridXMm + fullWidthMm;
       texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
     }
@@ -250,7 +250,7 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
       const from = Math.max(starts[i], j) - j;
       const to = Math.min(starts[i] + counts[i].drawn, j + 1) - j;
       if (!(to - from > 1e-9)) continue;
-      if (from <= 1e-9 && to >= 1 - 1e-9) pieces[i].push({ ...book.full(shape, x, y), glyph: glyph.name, part: 'full', fraction: 1 });
+      if (from <= 1e-9 && to >= 1 - 1e-9) pieces[i].push(book.fullPiece(shape, x, y, { glyph: glyph.name, part: 'full', fraction: 1 }));
       else pieces[i].push({ region: book.band(shape, from, to, direction, x, y), glyph: glyph.name, part: 'partial', fraction: to - from });
     }
   }
