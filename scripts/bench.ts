@@ -105,7 +105,7 @@ function renderStages(doc: unknown): Record<Stage, number> & { chars: number; pa
   const t3 = performance.now();
   const report = verifySvg(svg, { rounding: spec.encoding.rounding });
   const t4 = performance.now();
-  embedMeasured(svg, { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass });
+  embedMeasured(svg, { lieFactorWorst: report.lieFactor.worst, spread: report.spread, pass: report.pass }, report.summary);
   const t5 = performance.now();
   return { parse: t1 - t0, layout: t2 - t1, write: t3 - t2, verify: t4 - t3, embed: t5 - t4, chars: svg.length, pass: report.pass, reason: report.reason ?? '' };
 }
