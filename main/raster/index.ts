@@ -1,5 +1,6 @@
 export {
   rasterizeSvg,
+  encodePng,
   renderSvgPixels,
   readSvgPageSize,
   rasterSizePx,

@@ -3,7 +3,8 @@
 // overlaps (never below the print minimum), and warn about whatever still does.
 import type { Warning } from '../errors';
 import { boxOf, type Box } from '../geometry/region';
-import type { Scene, SceneText } from '../scene';
+import type { Scene, SceneGlyph, SceneText } from '../scene';
+import { regionBounds, type Bounds } from './glyphBook';
 import { MIN_TEXT_SIZE_MM, resizeText, textBox } from './labels';
 
 export interface LabelCollision {
@@ -20,19 +21,35 @@ export function boxesOverlap(a: Box, b: Box, clearanceMm = 0): boolean {
   return a.x < b.x + b.width + clearanceMm && b.x < a.x + a.width + clearanceMm && a.y < b.y + b.height + clearanceMm && b.y < a.y + a.height + clearanceMm;
 }
 
-/** Ink box of each mark (all its pieces together); marks with no ink are left out. */
-export function markBoxes(scene: Pick<Scene, 'marks'>): { id: string; box: Box }[] {
+/** Extremes of one piece's ink (the glyph book's, which knows shared shapes), or null for no ink. */
+export type PieceBounds = (piece: SceneGlyph) => Bounds | null;
+
+/**
+ * Ink box of each mark (all its pieces together); marks with no ink are left out. With `pieceBounds` the
+ * pieces placed by reference are not scanned point by point; the box is the same to the last bit.
+ */
+export function markBoxes(scene: Pick<Scene, 'marks'>, pieceBounds: PieceBounds = (g) => regionBounds(g.region)): { id: string; box: Box }[] {
   const out: { id: string; box: Box }[] = [];
   for (const mark of scene.marks) {
-    const box = boxOf(mark.glyphs.flatMap((g) => g.region));
+    let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+    for (const g of mark.glyphs) {
+      const b = pieceBounds(g);
+      if (!b) continue;
+      if (b.minX < minX) minX = b.minX;
+      if (b.minY < minY) minY = b.minY;
+      if (b.maxX > maxX) maxX = b.maxX;
+      if (b.maxY > maxY) maxY = b.maxY;
+    }
+    // As boxOf of all the points together: its width and height are taken from the same extremes.
+    const box = minX === Infinity ? boxOf([]) : { x: minX, y: minY, width: maxX - minX, height: maxY - minY };
     if (box.width > 0 && box.height > 0) out.push({ id: mark.id, box });
   }
   return out;
 }
 
-function obstacles(scene: Pick<Scene, 'marks' | 'legendKeys'>): { kind: 'mark' | 'legend-key'; other: string | number; box: Box }[] {
+function obstacles(scene: Pick<Scene, 'marks' | 'legendKeys'>, pieceBounds?: PieceBounds): { kind: 'mark' | 'legend-key'; other: string | number; box: Box }[] {
   return [
-    ...markBoxes(scene).map((m) => ({ kind: 'mark' as const, other: m.id, box: m.box })),
+    ...markBoxes(scene, pieceBounds).map((m) => ({ kind: 'mark' as const, other: m.id, box: m.box })),
     ...scene.legendKeys.map((k, i) => ({ kind: 'legend-key' as const, other: i, box: boxOf(k.region) })),
   ];
 }
@@ -55,20 +72,24 @@ const SHRINK_STEP = 0.9;
  * Texts that overlap something are shrunk step by step around their anchor until they clear it or
  * reach the print minimum; any overlap left is reported as a warning. Earlier texts win over later ones.
  */
-export function resolveLabelCollisions(scene: Pick<Scene, 'marks' | 'legendKeys' | 'texts'>): { texts: SceneText[]; warnings: Warning[] } {
+export function resolveLabelCollisions(scene: Pick<Scene, 'marks' | 'legendKeys' | 'texts'>, pieceBounds?: PieceBounds): { texts: SceneText[]; warnings: Warning[] } {
   // A mark's box is checked first; only a text inside it is checked against the mark's pieces, so a value label
   // beside the last glyph of a wrapped row (inside the mark's box, clear of its ink) is not taken for a clash.
+  const boundsOf: PieceBounds = pieceBounds ?? ((g) => regionBounds(g.region));
   const pieceBoxes = new Map<string, Box[]>();
   const piecesOf = (id: string): Box[] => {
     let list = pieceBoxes.get(id);
     if (!list) {
       const mark = scene.marks.find((m) => m.id === id);
-      list = (mark?.glyphs ?? []).map((g) => boxOf(g.region));
+      list = (mark?.glyphs ?? []).flatMap((g) => {
+        const b = boundsOf(g);
+        return b ? [{ x: b.minX, y: b.minY, width: b.maxX - b.minX, height: b.maxY - b.minY }] : [];
+      });
       pieceBoxes.set(id, list);
     }
     return list;
   };
-  const obs = obstacles(scene);
+  const obs = obstacles(scene, pieceBounds);
   const hits = (box: Box, o: (typeof obs)[number]) => boxesOverlap(box, o.box) && (o.kind !== 'mark' || piecesOf(String(o.other)).some((p) => boxesOverlap(box, p)));
   const placed: Box[] = [];
   const texts: SceneText[] = [];

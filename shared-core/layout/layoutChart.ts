@@ -192,7 +192,7 @@ function layoutInFamily(given: ChartSpec): Scene {
   const sharedGrid = mode === 'repeat' && spec.encoding.arrangement === 'shared-grid';
   if ((mode === 'repeat' && !sharedGrid) || mode === 'stack') warnings.push(...sliverWarnings(spec, result.marks, result.unit));
 
-  const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] });
+  const resolved = resolveLabelCollisions({ marks: result.marks, legendKeys: result.legendKeys, texts: [...frame.texts, ...result.texts] }, (g) => book.pieceBounds(g));
   warnings.push(...resolved.warnings);
 
   const summary: ChartSummary = {

@@ -181,7 +181,7 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
       const { row: r } = slotCell(j, p.columns, p.rowsPer[i], direction);
       const x = gridXMm + columnXMm(j % p.columns, p.columns, p, direction) + (p.cellWMm - shape.widthMm) / 2;
       const y = rowTopMm + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
-      if (j < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1 });
+      if (j < count.full) pieces.push(book.fullPiece(shape, x, y, { glyph: row.glyph.name, part: 'full', fraction: 1 }));
       else pieces.push({ region: book.band(shape, 0, count.partial, direction, x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial });
     }
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces, intended: count.drawn });
@@ -199,17 +199,17 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     if (layout.valueLabels) {
       // The value follows the ink of the category's last glyph, like a bar-end label (a partial glyph's cut
       // edge, not its empty slot), on the grid row that glyph stands in: after the ink's right edge, or for
-      // right-to-left rows before its left edge.
+      // right-to-left rows before its left edge. Extremes come from the glyph book (same bits, no point scan).
       const lastSlot = slots[i] - 1;
       const lastRow = lastSlot >= 0 ? slotCell(lastSlot, p.columns, p.rowsPer[i], direction).row : 0;
       const inRow = lastSlot >= 0 ? pieces.slice(lastSlot - (lastSlot % p.columns)) : [];
       const rowBaselineMm = baselineMm + lastRow * (p.cellHMm + p.gapMm);
       if (direction === 'rtl') {
-        const inkStartMm = inRow.reduce((start, g) => g.region.reduce((s, ring) => ring.reduce((x, pt) => Math.min(x, pt.x), s), start), Infinity);
+        const inkStartMm = inRow.reduce((start, g) => Math.min(start, book.pieceBounds(g)?.minX ?? Infinity), Infinity);
         const startMm = Number.isFinite(inkStartMm) ? inkStartMm : gridXMm + fullWidthMm;
         texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.min(gridXMm + fullWidthMm, startMm) - VALUE_PAD_MM, yMm: rowBaselineMm, sizeMm: valueSizeMm, anchor: 'end', color: INK_COLORS.muted, owner: row.id }));
       } else {
-        const inkEndMm = inRow.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
+        const inkEndMm = inRow.reduce((end, g) => Math.max(end, book.pieceBounds(g)?.maxX ?? -Infinity), -Infinity);
         const endMm = Number.isFinite(inkEndMm) ? inkEndMm : gridXMm;
         texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: rowBaselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
       }
@@ -296,7 +296,7 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
       const from = Math.max(starts[i], j) - j;
       const to = Math.min(starts[i] + counts[i].drawn, j + 1) - j;
       if (!(to - from > 1e-9)) continue;
-      if (from <= 1e-9 && to >= 1 - 1e-9) pieces[i].push({ ...book.full(shape, x, y), glyph: glyph.name, part: 'full', fraction: 1 });
+      if (from <= 1e-9 && to >= 1 - 1e-9) pieces[i].push(book.fullPiece(shape, x, y, { glyph: glyph.name, part: 'full', fraction: 1 }));
       else pieces[i].push({ region: book.band(shape, from, to, direction, x, y), glyph: glyph.name, part: 'partial', fraction: to - from });
     }
   }

@@ -67,7 +67,7 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
     if (row.value > 0 && k > 0) {
       const shape = book.shape(row.glyph, k * row.value);
       topMm = baseline - shape.heightMm;
-      pieces.push({ ...book.full(shape, centre - shape.widthMm / 2, topMm), glyph: row.glyph.name, part: 'full', fraction: 1 });
+      pieces.push(book.fullPiece(shape, centre - shape.widthMm / 2, topMm, { glyph: row.glyph.name, part: 'full', fraction: 1 }));
     }
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'area', glyphs: pieces, intended: k * row.value });
     if (layout.valueLabels) {

@@ -115,7 +115,7 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
     const count = counts[i];
     for (let k = 0; k < slots[i]; k++) {
       const y = baselineYMm - k * p.pitchMm - groupShiftMm(k, every, p.groupMm) - shape.heightMm;
-      if (k < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1, slot: k });
+      if (k < count.full) pieces.push(book.fullPiece(shape, x, y, { glyph: row.glyph.name, part: 'full', fraction: 1, slot: k }));
       else pieces.push({ region: book.band(shape, 0, count.partial, 'btt', x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial, slot: k });
     }
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'length', glyphs: pieces, intended: count.drawn * p.pitchMm });
