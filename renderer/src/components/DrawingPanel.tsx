@@ -1,4 +1,5 @@
 // How the numbers become glyphs: mode, what one glyph stands for, the glyph, rounding and colours.
+// (Which labels show is in TypeLabelsPanel; size, gap and direction in SizeOrderPanel.)
 import { useRef, useState, type ReactElement } from 'react';
 import type { Arrangement, EncodingMode, FillTo, Rounding } from '../../../shared-core/document';
 import type { Action } from '../editor/actions';
@@ -171,20 +172,6 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
         <p className="field-hint">Colours go to categories in order. Marks print opaque.</p>
       </div>
 
-      <div className="field">
-        <span className="field-label">Show</span>
-        <div className="checks">
-          <label className="check">
-            <input type="checkbox" checked={doc.layout.labels} onChange={(e) => dispatch({ type: 'set-show', what: 'labels', on: e.target.checked })} /> Labels
-          </label>
-          <label className="check">
-            <input type="checkbox" checked={doc.layout.valueLabels} onChange={(e) => dispatch({ type: 'set-show', what: 'valueLabels', on: e.target.checked })} /> Values
-          </label>
-          <label className="check">
-            <input type="checkbox" checked={doc.layout.legend} onChange={(e) => dispatch({ type: 'set-show', what: 'legend', on: e.target.checked })} /> Key
-          </label>
-        </div>
-      </div>
     </div>
   );
 }

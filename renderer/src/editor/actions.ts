@@ -1,7 +1,7 @@
 // Every change the editor can make, as a named action, and the pure perform(document, action)
 // that returns the next document. Nothing else changes a document.
 
-import { PAGE_UNIT_MM, type OwnGlyph, type Arrangement, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
+import { PAGE_UNIT_MM, type OwnGlyph, type Arrangement, type Direction, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
 import type { EditorDocument, EditorRow } from './editorDocument';
 import { parseTable } from './parseTable';
 
@@ -36,7 +36,16 @@ export type Action =
   /** A glyph of one's own kept in the document under `name` ("own:…"), and used as the chart's glyph. */
   | { type: 'add-own-glyph'; name: string; glyph: OwnGlyph }
   /** Removes an own glyph; rows and the chart fall back to the bundled square where they used it. */
-  | { type: 'remove-own-glyph'; name: string };
+  | { type: 'remove-own-glyph'; name: string }
+  // Layout and style controls. typing: sent while a field is typed in or a colour dragged in its
+  // picker, merged into one undo step until the control is left.
+  /** null: automatic (the palette colour of the row's place). */
+  | { type: 'set-row-color'; rowId: string; color: string | null; typing?: boolean }
+  /** null: automatic (the largest size that fits). */
+  | { type: 'set-glyph-size'; glyphSizeMm: number | null; typing?: boolean }
+  | { type: 'set-gap'; gapRatio: number; typing?: boolean }
+  | { type: 'set-columns'; columns: number | 'auto'; typing?: boolean }
+  | { type: 'set-direction'; direction: Direction };
 
 export type ActionType = Action['type'];
 
@@ -67,7 +76,20 @@ export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze(
   'set-show': 'label setting',
   'add-own-glyph': 'glyph import',
   'remove-own-glyph': 'glyph removal',
+  'set-row-color': 'row colour change',
+  'set-glyph-size': 'glyph size change',
+  'set-gap': 'gap change',
+  'set-columns': 'glyphs per row change',
+  'set-direction': 'reading direction change',
 });
+
+/** The layout's own bound on the gap (chartSchema: at most 10 glyph sizes). */
+const MAX_GAP_RATIO = 10;
+
+/** An opaque #rrggbb colour in lower case, or null for anything else. */
+function opaqueHex(color: string): string | null {
+  return /^#[0-9a-f]{6}$/i.test(color) ? color.toLowerCase() : null;
+}
 
 const MAX_ROWS = 10_000;
 
@@ -240,6 +262,32 @@ export function perform(doc: EditorDocument, action: Action): EditorDocument {
     }
     case 'set-show':
       return doc.layout[action.what] === action.on ? doc : { ...doc, layout: { ...doc.layout, [action.what]: action.on } };
+    case 'set-row-color': {
+      const color = action.color === null ? null : opaqueHex(action.color);
+      if (action.color !== null && color === null) return doc;
+      return mapRow(doc, action.rowId, (r) => {
+        if ((r.color ?? null) === color) return r;
+        const { color: _old, ...rest } = r;
+        return color === null ? rest : { ...rest, color };
+      });
+    }
+    case 'set-glyph-size': {
+      const size = action.glyphSizeMm;
+      if (size !== null && !(Number.isFinite(size) && size > 0)) return doc;
+      if ((doc.layout.glyphSizeMm ?? null) === size) return doc;
+      const { glyphSizeMm: _old, ...rest } = doc.layout;
+      return { ...doc, layout: size === null ? rest : { ...rest, glyphSizeMm: size } };
+    }
+    case 'set-gap':
+      if (!(Number.isFinite(action.gapRatio) && action.gapRatio >= 0 && action.gapRatio <= MAX_GAP_RATIO) || action.gapRatio === doc.layout.gapRatio) return doc;
+      return { ...doc, layout: { ...doc.layout, gapRatio: action.gapRatio } };
+    case 'set-columns': {
+      const c = action.columns;
+      if (c !== 'auto' && !(Number.isInteger(c) && c >= 1)) return doc;
+      return c === doc.layout.columns ? doc : { ...doc, layout: { ...doc.layout, columns: c } };
+    }
+    case 'set-direction':
+      return action.direction === doc.layout.direction ? doc : { ...doc, layout: { ...doc.layout, direction: action.direction } };
   }
 }
 
@@ -258,6 +306,12 @@ export function coalesceKey(action: Action): string | null {
       return action.type;
     case 'set-unit':
       return action.typing ? 'set-unit:typing' : null;
+    case 'set-row-color':
+      return action.typing ? `${action.type}:${action.rowId}:typing` : null;
+    case 'set-glyph-size':
+    case 'set-gap':
+    case 'set-columns':
+      return action.typing ? `${action.type}:typing` : null;
     default:
       return null;
   }
