@@ -28,6 +28,32 @@ const MAX_PAGE_MM = 10_000;
  */
 export const TEXT_LIMITS = Object.freeze({ title: 200, source: 300, label: 120, unitName: 60, glyphName: 100 });
 
+// Layout and style options (all optional in the document; absent reproduces the chart as drawn before them).
+/** Glyphs per group in a row or column before a wider gap: 0 for no grouping. Fives and tens are how tallies are counted at a glance (common practice, no source). */
+export const GROUP_EVERY_CHOICES = Object.freeze([0, 5, 10] as const);
+export type GroupEvery = (typeof GROUP_EVERY_CHOICES)[number];
+export const LABEL_POSITIONS = Object.freeze(['beside', 'above'] as const);
+export type LabelPosition = (typeof LABEL_POSITIONS)[number];
+export const LABEL_ALIGNS = Object.freeze(['start', 'end'] as const);
+export type LabelAlign = (typeof LABEL_ALIGNS)[number];
+/** Order of rows on the chart; the table keeps the order the data were given in. */
+export const SORT_ORDERS = Object.freeze(['given', 'descending', 'ascending'] as const);
+export type SortOrder = (typeof SORT_ORDERS)[number];
+/** Bundled open-licence text fonts: Noto Sans, and a serif face (see assets/fonts/README.md). */
+export const TEXT_FONTS = Object.freeze(['sans', 'serif'] as const);
+export type TextFont = (typeof TEXT_FONTS)[number];
+/** Title size in points: from the print minimum of 6 pt to a poster headline (common practice, no source). */
+export const TITLE_SIZE_PT_RANGE = Object.freeze({ min: 6, max: 72 });
+/** Source line size in points (common practice, no source; under 6 pt the layout warns it may not print legibly). */
+export const SOURCE_SIZE_PT_RANGE = Object.freeze({ min: 5, max: 24 });
+/** Longest unit suffix of value labels ("L", "kWh", "people"), in characters. */
+export const VALUE_UNIT_MAX = 12;
+/** Longest key caption wording, in characters. */
+export const KEY_WORDING_MAX = 80;
+/** The placeholders a key wording may hold; {amount} is required so the key always states what one glyph stands for. */
+export const KEY_WORDING_AMOUNT = '{amount}';
+export const KEY_WORDING_UNIT = '{unit}';
+
 export type EncodingMode = 'repeat' | 'stack' | 'scale' | 'fill';
 export type Rounding = 'ink-cut' | 'whole';
 /** Repeat only: one row of glyphs per category, or one shared icon array showing parts of a whole. */
@@ -92,6 +118,24 @@ export interface LayoutOptions {
   bleedMm: number;
   /** Page background: an opaque CSS hex colour painted to the bleed edge, or "none" (absent) for a transparent page. */
   background?: string;
+  /** A wider gap after every 5 or 10 glyphs of a row (repeat) or column (stack); absent or 0: even spacing. */
+  groupEvery?: GroupEvery;
+  /** Category labels beside their row (absent: beside) or above it. */
+  labelPosition?: LabelPosition;
+  /** Alignment of labels in their column; absent: "end" beside (flush against the marks), "start" above. */
+  labelAlign?: LabelAlign;
+  /** Suffix of value labels: value 12 with "L" is written "12 L". */
+  valueUnit?: string;
+  /** Row order on the chart; absent: as given. */
+  sort?: SortOrder;
+  /** Title size in points; absent: the default size. */
+  titleSizePt?: number;
+  /** Source line size in points; absent: the default size. */
+  sourceSizePt?: number;
+  /** Text font; absent: sans (Noto Sans). */
+  font?: TextFont;
+  /** Key caption with {amount} (and optionally {unit}) filled in from the data; absent: the default wording. */
+  keyWording?: string;
 }
 
 export interface PageMm {
@@ -266,6 +310,21 @@ const marginsSchema = z.union(
   { error: expecting('a margin in mm, or { "top", "right", "bottom", "left" } in mm, each 0 or more') },
 );
 
+const ptRange = (range: { min: number; max: number }, what: string) =>
+  finiteNumber()
+    .min(range.min, { error: (issue) => `${what} must be from ${range.min} to ${range.max} pt, got ${describeInput(issue.input)}` })
+    .max(range.max, { error: (issue) => `${what} must be from ${range.min} to ${range.max} pt, got ${describeInput(issue.input)}` });
+
+const keyWordingSchema = () =>
+  z
+    .string({ error: expecting(`text containing ${KEY_WORDING_AMOUNT}`) })
+    .refine((s) => codePoints(s) <= KEY_WORDING_MAX, {
+      error: (issue) => `is ${codePoints(String(issue.input))} characters long; the key wording may have at most ${KEY_WORDING_MAX} characters`,
+    })
+    .refine((s) => s.includes(KEY_WORDING_AMOUNT), {
+      error: `must contain ${KEY_WORDING_AMOUNT}, where the amount one glyph stands for is written, so the key always states the unit from the data (for example "Each glyph = {amount} {unit}")`,
+    });
+
 const layoutSchema = z.strictObject(
   {
     columns: z
@@ -281,6 +340,24 @@ const layoutSchema = z.strictObject(
     margins: marginsSchema.default(DEFAULT_MARGIN_MM),
     bleedMm: nonNegativeNumber().default(0),
     background: z.union([z.literal('none'), hexColor()], { error: expecting('"none" or a CSS hex colour such as "#fdf6e3"') }).optional(),
+    groupEvery: z
+      .union(GROUP_EVERY_CHOICES.map((n) => z.literal(n)) as unknown as [z.ZodLiteral<0>, z.ZodLiteral<5>, z.ZodLiteral<10>], {
+        error: expecting('0 (no groups), 5 or 10 glyphs per group'),
+      })
+      .optional(),
+    labelPosition: choice(LABEL_POSITIONS as unknown as ['beside', 'above']).optional(),
+    labelAlign: choice(LABEL_ALIGNS as unknown as ['start', 'end']).optional(),
+    valueUnit: z
+      .string({ error: expecting('a short unit such as "L" or "kWh"') })
+      .refine((s) => codePoints(s) <= VALUE_UNIT_MAX && !/[\r\n]/.test(s), {
+        error: (issue) => `must be one line of at most ${VALUE_UNIT_MAX} characters, such as "L" or "kWh", got ${describeInput(issue.input)}`,
+      })
+      .optional(),
+    sort: choice(SORT_ORDERS as unknown as ['given', 'descending', 'ascending']).optional(),
+    titleSizePt: ptRange(TITLE_SIZE_PT_RANGE, 'the title size').optional(),
+    sourceSizePt: ptRange(SOURCE_SIZE_PT_RANGE, 'the source size').optional(),
+    font: choice(TEXT_FONTS as unknown as ['sans', 'serif']).optional(),
+    keyWording: keyWordingSchema().optional(),
   },
   { error: expecting('an object of layout options') },
 );
@@ -488,6 +565,16 @@ export function parseChart(json: unknown): ChartSpec {
   if (d.layout.glyphSizeMm !== undefined) layout.glyphSizeMm = d.layout.glyphSizeMm;
   if (d.layout.colors !== undefined) layout.colors = [...d.layout.colors];
   if (d.layout.background !== undefined && d.layout.background !== 'none') layout.background = d.layout.background;
+  // The style options are kept only when the document sets them, so an older document saves back unchanged.
+  if (d.layout.groupEvery !== undefined) layout.groupEvery = d.layout.groupEvery;
+  if (d.layout.labelPosition !== undefined) layout.labelPosition = d.layout.labelPosition;
+  if (d.layout.labelAlign !== undefined) layout.labelAlign = d.layout.labelAlign;
+  if (d.layout.valueUnit !== undefined) layout.valueUnit = d.layout.valueUnit;
+  if (d.layout.sort !== undefined) layout.sort = d.layout.sort;
+  if (d.layout.titleSizePt !== undefined) layout.titleSizePt = d.layout.titleSizePt;
+  if (d.layout.sourceSizePt !== undefined) layout.sourceSizePt = d.layout.sourceSizePt;
+  if (d.layout.font !== undefined) layout.font = d.layout.font;
+  if (d.layout.keyWording !== undefined) layout.keyWording = d.layout.keyWording;
 
   const perMm = PAGE_UNIT_MM[d.page.unit];
   const spec: ChartSpec = {
