@@ -593,7 +593,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
               <span>Type &amp; labels</span>
             </summary>
             <div className="section-body">
-              <TypeLabelsPanel doc={doc} dispatch={dispatch} seal={seal} />
+              <TypeLabelsPanel doc={doc} dispatch={dispatch} seal={seal} problems={current && outcome?.kind === 'invalid' ? outcome.problems : []} />
             </div>
           </details>
           <details className="section" open>
@@ -611,7 +611,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
               <span className="summary-meta">{trimNumber(doc.page.width)} × {trimNumber(doc.page.height)} {doc.page.unit}</span>
             </summary>
             <div className="section-body">
-              <PagePanel doc={doc} dispatch={dispatch} />
+              <PagePanel doc={doc} dispatch={dispatch} seal={seal} />
             </div>
           </details>
         </aside>

@@ -1,7 +1,7 @@
 // How big the glyphs are, how far apart, how many to a row, which way they are read. Only the settings
 // the current mode uses are shown; each applies as it is typed and is one undo step per visit.
 import type { ReactElement } from 'react';
-import type { Direction } from '../../../shared-core/document';
+import { GROUP_EVERY_CHOICES, SORT_ORDERS, type Direction, type GroupEvery, type SortOrder } from '../../../shared-core/document';
 import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
 import { NumberField } from './NumberField';
@@ -22,6 +22,12 @@ const FILL_DIRECTIONS: readonly RadioOption<Direction>[] = [
   { value: 'btt', label: 'Rises from the bottom' },
   { value: 'rtl', label: 'From the right' },
 ];
+
+const GROUP_WORDS: Record<GroupEvery, string> = { 0: 'Even', 5: 'In fives', 10: 'In tens' };
+const GROUPS: readonly RadioOption<`${GroupEvery}`>[] = GROUP_EVERY_CHOICES.map((n) => ({ value: `${n}`, label: GROUP_WORDS[n] ?? `In ${n}s` }));
+
+const SORT_WORDS: Record<SortOrder, string> = { given: 'As in the table', descending: 'Largest first', ascending: 'Smallest first' };
+const SORTS: readonly RadioOption<SortOrder>[] = SORT_ORDERS.map((o) => ({ value: o, label: SORT_WORDS[o] ?? o }));
 
 interface SizeOrderPanelProps {
   doc: EditorDocument;
@@ -109,6 +115,26 @@ export function SizeOrderPanel({ doc, dispatch, seal }: SizeOrderPanelProps): Re
           )}
         </div>
       )}
+
+      {usesGap && (
+        <div className="field">
+          <span className="field-label" id="group-label">Grouping</span>
+          <RadioGroup
+            labelledBy="group-label"
+            options={GROUPS}
+            value={`${layout.groupEvery ?? 0}`}
+            onChange={(v) => dispatch({ type: 'set-group-every', groupEvery: Number(v) as GroupEvery })}
+            testId="group-group"
+          />
+          <p className="field-hint">{mode === 'stack' ? 'A wider gap after every five or ten glyphs of a column' : 'A wider gap after every five or ten glyphs of a row'}, so counts read at a glance.</p>
+        </div>
+      )}
+
+      <div className="field">
+        <span className="field-label" id="sort-label">Order on the chart</span>
+        <RadioGroup labelledBy="sort-label" options={SORTS} value={layout.sort ?? 'given'} onChange={(sort) => dispatch({ type: 'set-sort', sort })} testId="sort-group" />
+        <p className="field-hint">Reorders the chart only: the table keeps your order.</p>
+      </div>
 
       {directions && (
         <div className="field">
