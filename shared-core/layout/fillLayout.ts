@@ -7,9 +7,9 @@ import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene'
 import { noRoomError } from './noRoom';
 import { planCellRows, TEXT_GAP_MM, type CellItem } from './cellRows';
 import { MIN_GLYPH_MM } from './fitSize';
-import { formatShare, formatValue, lineMetrics, makeLines, makeText, TEXT_SIZE_MM } from './labels';
+import { formatShare, formatValue, lineMetrics, valueLabelText, makeLines, makeText, TEXT_SIZE_MM } from './labels';
 import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
-import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
+import { keyWordingText, LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
 
 export const FILL_MAX_GLYPH_MM = 60;
@@ -44,7 +44,7 @@ export function fillLayout(ctx: LayoutContext): ModeResult {
   const f = sizePerRootInk(glyphs);
   const keys = keyGlyphs(ctx);
   const keyFactor = sizePerRootInk(keys);
-  const valueTexts = rows.map((r) => (byShare ? formatShare(r.value) : formatValue(r.value)));
+  const valueTexts = rows.map((r) => (byShare ? formatShare(r.value) : valueLabelText(r.value, layout)));
   // The size parameter is the glyph size G; each glyph's box follows from the shared ink area (G / largest)².
   const items: CellItem[] = rows.map((r, i) => {
     const root = Math.sqrt(r.glyph.areaUnits2) * f.largest;
@@ -92,7 +92,10 @@ export function fillLayout(ctx: LayoutContext): ModeResult {
   const legendKeys: SceneLegendKey[] = [];
   if (layout.legend) {
     const unitName = spec.encoding.unitName ?? '';
-    const sentence = byShare ? 'full glyph = 100%' : unitLegendText(fullValue, unitName, 'full glyph =');
+    const wording = layout.keyWording;
+    const sentence = byShare
+      ? (wording !== undefined ? keyWordingText(wording, '100%', '') : 'full glyph = 100%')
+      : unitLegendText(fullValue, unitName, 'full glyph =', wording);
     const keyInk = keyInkMm2(inkMm2, root * keyFactor.height);
     const legend = placeUnitLegend(book, keys.map((g) => book.shape(g, keyInk)), box, plan.bottomMm + LEGEND_GAP_MM, sentence, fullValue, unitName);
     texts.push(...legend.texts);

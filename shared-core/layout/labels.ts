@@ -1,7 +1,7 @@
 // Text for charts: default sizes, measuring, wrapping, number formats, and SceneText with ink bounds.
 import type { Box } from '../geometry/region';
 import type { SceneText } from '../scene';
-import { breakLines, measureText, textOutline, type FontWeight } from '../text';
+import { breakLines, measureText, textOutline, type FontWeight, type TextFamily } from '../text';
 import { INK_COLORS } from './palette';
 
 /** Default text sizes in mm (common practice for print charts, no source); 1 pt = 25.4 / 72 mm (CSS Values and Units). */
@@ -12,6 +12,28 @@ export const TEXT_SIZE_MM = Object.freeze({
   legend: 3,
   source: 2.5,
 });
+
+/**
+ * The text family of the chart being laid out. Every measure and outline in layout goes through the helpers
+ * below, so the family is set once for the whole (synchronous) layout rather than threaded through each mode.
+ */
+let currentFamily: TextFamily = 'sans';
+
+/** Runs a layout with every text measured and outlined in `family`, restoring the previous family after. */
+export function withTextFamily<T>(family: TextFamily, run: () => T): T {
+  const before = currentFamily;
+  currentFamily = family;
+  try {
+    return run();
+  } finally {
+    currentFamily = before;
+  }
+}
+
+/** The family field a SceneText carries: absent for sans, so sans scenes stay as they were. */
+function familyOf(): { family?: 'serif' } {
+  return currentFamily === 'serif' ? { family: 'serif' } : {};
+}
 
 /** Text is never shrunk below this: a little above 6 pt (ptToMm(6) = 2.117 mm), the printers' usual minimum. */
 export const MIN_TEXT_SIZE_MM = 2.2;
@@ -27,12 +49,12 @@ export interface LineMetricsMm {
 }
 
 export function lineMetrics(sizeMm: number, weight: FontWeight = 400): LineMetricsMm {
-  const m = measureText('', { sizeMm, weight });
+  const m = measureText('', { sizeMm, weight, family: currentFamily });
   return { ascentMm: m.ascentMm, descentMm: m.descentMm, capHeightMm: m.capHeightMm, lineHeightMm: m.lineHeightMm, boxHeightMm: m.ascentMm + m.descentMm };
 }
 
 export function textWidthMm(text: string, sizeMm: number, weight: FontWeight = 400): number {
-  return measureText(text, { sizeMm, weight }).widthMm;
+  return measureText(text, { sizeMm, weight, family: currentFamily }).widthMm;
 }
 
 /** A label as one line: line breaks and runs of blanks become single spaces. */
@@ -43,7 +65,7 @@ export function oneLine(text: string): string {
 /** Greedy word wrap to a width; a word wider than the width keeps a line of its own. Explicit line breaks are kept. */
 export function wrapText(text: string, maxWidthMm: number, sizeMm: number, weight: FontWeight = 400): string[] {
   // Linear in the text (shared-core/text/breakLines): re-measuring the line for every word was quadratic.
-  return breakLines(text, maxWidthMm, { sizeMm, weight });
+  return breakLines(text, maxWidthMm, { sizeMm, weight, family: currentFamily });
 }
 
 /** Numbers as a reader wants them: grouped thousands, at most 2 decimals from 1 up, 3 significant digits below 1. */
@@ -51,6 +73,12 @@ export function formatValue(value: number): string {
   if (value === 0) return '0';
   if (Math.abs(value) >= 1) return value.toLocaleString('en-US', { maximumFractionDigits: 2 });
   return value.toLocaleString('en-US', { maximumSignificantDigits: 3 });
+}
+
+/** A value label: the number, then the document's unit suffix where it sets one ("12 L"). */
+export function valueLabelText(value: number, layout: { valueUnit?: string }): string {
+  const suffix = layout.valueUnit?.trim() ?? '';
+  return suffix ? `${formatValue(value)} ${oneLine(suffix)}` : formatValue(value);
 }
 
 export function formatShare(share: number): string {
@@ -73,7 +101,7 @@ export interface TextSpec {
 export function makeText(spec: TextSpec): SceneText {
   const weight = spec.weight ?? 400;
   const anchor = spec.anchor ?? 'start';
-  const outline = textOutline(spec.text, { xMm: spec.xMm, yMm: spec.yMm, sizeMm: spec.sizeMm, weight, anchor });
+  const outline = textOutline(spec.text, { xMm: spec.xMm, yMm: spec.yMm, sizeMm: spec.sizeMm, weight, anchor, family: currentFamily });
   const text: SceneText = {
     role: spec.role,
     text: spec.text,
@@ -84,6 +112,7 @@ export function makeText(spec: TextSpec): SceneText {
     anchor,
     color: spec.color ?? INK_COLORS.text,
     bboxMm: outline.bbox,
+    ...familyOf(),
   };
   if (spec.owner !== undefined) text.owner = spec.owner;
   return text;
@@ -91,14 +120,14 @@ export function makeText(spec: TextSpec): SceneText {
 
 /** The same text at another size, re-measured; anchor and baseline stay put. */
 export function resizeText(text: SceneText, sizeMm: number): SceneText {
-  const outline = textOutline(text.text, { xMm: text.xMm, yMm: text.yMm, sizeMm, weight: text.weight, anchor: text.anchor });
+  const outline = textOutline(text.text, { xMm: text.xMm, yMm: text.yMm, sizeMm, weight: text.weight, anchor: text.anchor, family: text.family ?? 'sans' });
   return { ...text, sizeMm, bboxMm: outline.bbox };
 }
 
 /** Ink bounds of a text, measuring it if layout did not. */
 export function textBox(text: SceneText): Box {
   if (text.bboxMm) return text.bboxMm;
-  return textOutline(text.text, { xMm: text.xMm, yMm: text.yMm, sizeMm: text.sizeMm, weight: text.weight, anchor: text.anchor }).bbox;
+  return textOutline(text.text, { xMm: text.xMm, yMm: text.yMm, sizeMm: text.sizeMm, weight: text.weight, anchor: text.anchor, family: text.family ?? 'sans' }).bbox;
 }
 
 /** A label broken into lines no wider than `maxWidthMm` where it has spaces; a single long word stays whole. */

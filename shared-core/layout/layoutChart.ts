@@ -10,7 +10,8 @@ import { noRoomError } from './noRoom';
 import { sliverWarnings } from './slivers';
 import { fillLayout } from './fillLayout';
 import { createGlyphBook } from './glyphBook';
-import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, wrapText } from './labels';
+import { lineMetrics, makeText, MIN_TEXT_SIZE_MM, oneLine, textWidthMm, TEXT_SIZE_MM, withTextFamily, wrapText } from './labels';
+import { ptToMm } from '../text';
 import type { BoxMm, ChartRow, LayoutContext, ModeResult } from './layoutContext';
 import { categoryColor, checkDistinctColors, contrastRatio, INK_COLORS, mixWithWhite, opaqueColor, REST_WHITE_SHARE } from './palette';
 import { repeatLayout } from './repeatLayout';
@@ -59,17 +60,27 @@ function sourceLine(spec: ChartSpec): string {
   return named ? `${named}${/[.!?]$/.test(named) ? '' : '.'} ${footnote}` : footnote;
 }
 
-function pageFrame(spec: ChartSpec): Frame {
+/** Title and source sizes in mm: the document's sizes in points where it sets them, else the defaults. */
+export function frameTextSizesMm(spec: ChartSpec): { titleMm: number; sourceMm: number } {
+  const { titleSizePt, sourceSizePt } = spec.layout;
+  return {
+    titleMm: titleSizePt !== undefined ? ptToMm(titleSizePt) : TEXT_SIZE_MM.title,
+    sourceMm: sourceSizePt !== undefined ? ptToMm(sourceSizePt) : TEXT_SIZE_MM.source,
+  };
+}
+
+function pageFrame(spec: ChartSpec, warnings: Warning[]): Frame {
   const { margins } = spec.layout;
   const x = margins.left;
   const width = spec.page.widthMm - margins.left - margins.right;
   let top = margins.top;
   let bottom = spec.page.heightMm - margins.bottom;
   const texts: SceneText[] = [];
+  const sizes = frameTextSizesMm(spec);
 
   const title = spec.title?.trim();
   if (title) {
-    const fitted = fittedLines(title, width, TEXT_SIZE_MM.title, 700);
+    const fitted = fittedLines(title, width, sizes.titleMm, 700);
     const m = lineMetrics(fitted.sizeMm, 700);
     fitted.lines.forEach((line, i) => {
       texts.push(makeText({ role: 'title', text: line, xMm: x, yMm: top + m.ascentMm + i * m.lineHeightMm, sizeMm: fitted.sizeMm, weight: 700 }));
@@ -78,7 +89,13 @@ function pageFrame(spec: ChartSpec): Frame {
   }
   const source = sourceLine(spec);
   if (source) {
-    const fitted = fittedLines(source, width, TEXT_SIZE_MM.source, 400);
+    const fitted = fittedLines(source, width, sizes.sourceMm, 400);
+    if (fitted.sizeMm < MIN_TEXT_SIZE_MM) {
+      warnings.push({
+        code: 'text-small',
+        message: `The source line is set at ${(fitted.sizeMm * 72 / 25.4).toFixed(1)} pt, under the 6 pt most printers give as the smallest legible size; it may not read in print.`,
+      });
+    }
     const m = lineMetrics(fitted.sizeMm);
     const count = fitted.lines.length;
     fitted.lines.forEach((line, i) => {
@@ -97,9 +114,23 @@ function pageFrame(spec: ChartSpec): Frame {
   return { box: { x, y: top, width, height: Math.max(0, bottom - top) }, texts };
 }
 
+/**
+ * Data indices in chart order: as given, or by value (largest or smallest first). The sort is stable, so equal
+ * values keep the table's order; the table itself is never reordered.
+ */
+export function chartOrder(spec: ChartSpec): number[] {
+  const order = spec.data.map((_, i) => i);
+  const sort = spec.layout.sort ?? 'given';
+  if (sort === 'given') return order;
+  const sign = sort === 'descending' ? -1 : 1;
+  return order.sort((a, b) => sign * (spec.data[a].value - spec.data[b].value) || a - b);
+}
+
 function chartRows(spec: ChartSpec, glyphs: ReturnType<typeof resolveGlyphs>['rows'], warnings: Warning[]): ChartRow[] {
   const warned = new Set<string>();
-  const out = spec.data.map((row, i) => {
+  // Each row keeps its table index for its mark id and colour, so sorting moves a category, never renames or recolours it.
+  const out = chartOrder(spec).map((i) => {
+    const row = spec.data[i];
     const given = categoryColor(i, row.color, spec.layout.colors);
     // One warning per colour, however many categories share it.
     const color = opaqueColor(given, warned.has(given) ? undefined : warnings, `"${row.label}"`);
@@ -139,14 +170,21 @@ function runMode(ctx: LayoutContext): ModeResult {
  * (the message suggests a unit that fits).
  */
 export function layoutChart(spec: ChartSpec): Scene {
+  return withTextFamily(spec.layout.font ?? 'sans', () => layoutInFamily(spec));
+}
+
+function layoutInFamily(given: ChartSpec): Scene {
+  const order = chartOrder(given);
+  // The modes read the data in chart order (units, counts and slivers are per row), so they see the sorted rows.
+  const spec: ChartSpec = order.every((k, i) => k === i) ? given : { ...given, data: order.map((i) => given.data[i]) };
   const { mode } = spec.encoding;
   // Scale and fill draw one glyph per category: the same budget bounds the number of categories.
   if (mode === 'scale' || mode === 'fill') assertGlyphBudget(spec.data.map(() => 1), 1, { labels: spec.data.map((r) => r.label) });
   const warnings: Warning[] = [];
-  const glyphs = resolveGlyphs(spec);
+  const glyphs = resolveGlyphs(given);
   warnings.push(...glyphs.warnings);
-  const rows = chartRows(spec, glyphs.rows, warnings);
-  const frame = pageFrame(spec);
+  const rows = chartRows(given, glyphs.rows, warnings);
+  const frame = pageFrame(spec, warnings);
   const book = createGlyphBook();
   const ctx: LayoutContext = { spec, rows, chartGlyph: glyphs.chart, box: frame.box, book, warnings };
   const result = runMode(ctx);

@@ -25,9 +25,19 @@ export function unitLegendHeightMm(keyHeightMm: number): number {
   return LEGEND_GAP_MM + Math.max(keyHeightMm, lineMetrics(TEXT_SIZE_MM.legend).boxHeightMm);
 }
 
-export function unitLegendText(unit: number, unitName: string, prefix = 'one glyph ='): string {
+export function unitLegendText(unit: number, unitName: string, prefix = 'one glyph =', wording?: string): string {
   const name = unit === 1 ? singularOf(unitName) : unitName;
+  if (wording !== undefined) return keyWordingText(wording, formatValue(unit), name);
   return `${prefix} ${formatValue(unit)}${name ? ` ${name}` : ''}`;
+}
+
+/**
+ * The designer's key wording with {amount} and {unit} filled in from the chart, so the amount stated is always
+ * the unit the glyphs are drawn at. Blanks left by an empty unit name are closed up.
+ */
+export function keyWordingText(wording: string, amount: string, unitName: string): string {
+  const filled = wording.split('{amount}').join(amount).split('{unit}').join(unitName);
+  return filled.replace(/\s+/g, ' ').replace(/\s+([,.:;)])/g, '$1').trim();
 }
 
 /**

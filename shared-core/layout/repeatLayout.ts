@@ -5,7 +5,7 @@ import type { CutDirection } from '../glyph';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
 import { chooseGlyphSize } from './fitSize';
 import { isTallyError } from '../errors';
-import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
+import { labelLines, valueLabelText, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
 import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
@@ -70,7 +70,7 @@ export function repeatLayout(ctx: LayoutContext): ModeResult {
 }
 
 function legendSentence(ctx: LayoutContext, unit: number): string {
-  const text = unitLegendText(unit, ctx.spec.encoding.unitName ?? '');
+  const text = unitLegendText(unit, ctx.spec.encoding.unitName ?? '', undefined, ctx.spec.layout.keyWording);
   return ctx.spec.encoding.rounding === 'whole' ? `${text} (counts rounded to whole glyphs)` : text;
 }
 
@@ -95,7 +95,7 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   const direction = cutDirection(layout.direction);
   const lm = lineMetrics(labelSizeMm);
   const vm = lineMetrics(valueSizeMm);
-  const valueTexts = rows.map((r) => formatValue(r.value));
+  const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
   // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
   const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, labelSizeMm) : []));
   const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
@@ -201,7 +201,7 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const slotCount = total > 1e-9 ? Math.ceil(total - 1e-9) : 0;
 
   const lm = lineMetrics(TEXT_SIZE_MM.label);
-  const valueTexts = rows.map((r) => formatValue(r.value));
+  const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
   const listed = layout.labels || layout.valueLabels;
   const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, TEXT_SIZE_MM.label, 700) : []));
   const labelWMm = Math.max(0, ...labelText.map((l) => linesWidthMm(l, TEXT_SIZE_MM.label, 700)));

@@ -6,7 +6,7 @@ import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene'
 import { noRoomError } from './noRoom';
 import { planCellRows, TEXT_GAP_MM, type CellItem } from './cellRows';
 import { MIN_GLYPH_MM } from './fitSize';
-import { formatValue, lineMetrics, makeLines, makeText, TEXT_SIZE_MM } from './labels';
+import { formatValue, lineMetrics, valueLabelText, makeLines, makeText, TEXT_SIZE_MM } from './labels';
 import { keyGlyphs, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeScaleLegend, scaleLegendHeightMm } from './legend';
 import { INK_COLORS } from './palette';
@@ -23,7 +23,7 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
   const items: CellItem[] = rows.map((r) => {
     const rel = r.value > 0 ? linear(r.value) : 0;
     const root = Math.sqrt(r.glyph.areaUnits2);
-    return { widthPerSize: (rel * r.glyph.bbox.width) / root, heightPerSize: (rel * r.glyph.bbox.height) / root, label: r.label, value: formatValue(r.value) };
+    return { widthPerSize: (rel * r.glyph.bbox.width) / root, heightPerSize: (rel * r.glyph.bbox.height) / root, label: r.label, value: valueLabelText(r.value, layout) };
   });
   const tallest = Math.max(...items.map((it) => it.heightPerSize), 1e-12);
   const largestSide = Math.max(...items.map((it) => Math.max(it.widthPerSize, it.heightPerSize)), 1e-12);

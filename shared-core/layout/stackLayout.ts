@@ -5,7 +5,7 @@ import type { SceneGlyph, SceneLegendKey, SceneLine, SceneMark, SceneText } from
 import { chooseUnit } from './chooseUnit';
 import { chooseGlyphSize } from './fitSize';
 import type { NoRoomDetails } from './noRoom';
-import { formatValue, labelLines, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
+import { labelLines, valueLabelText, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
 import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
@@ -49,7 +49,7 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
   }
   const lm = lineMetrics(labelSizeMm);
   const vm = lineMetrics(TEXT_SIZE_MM.valueLabel);
-  const valueTexts = rows.map((r) => formatValue(r.value));
+  const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
   const labelWMm = labelText.map((l) => linesWidthMm(l, labelSizeMm));
   const valueWMm = valueTexts.map((t) => (layout.valueLabels ? textWidthMm(t, TEXT_SIZE_MM.valueLabel) : 0));
   const mostLines = Math.max(0, ...labelText.map((l) => l.length));
@@ -135,7 +135,7 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
 
   const legendKeys: SceneLegendKey[] = [];
   if (layout.legend) {
-    const text = unitLegendText(unit.unit, spec.encoding.unitName ?? '');
+    const text = unitLegendText(unit.unit, spec.encoding.unitName ?? '', undefined, layout.keyWording);
     const sentence = spec.encoding.rounding === 'whole' ? `${text} (counts rounded to whole glyphs)` : text;
     const legend = placeUnitLegend(book, keys.map((g) => book.shape(g, p.inkMm2)), box, baselineYMm + belowMm + LEGEND_GAP_MM, sentence, unit.unit, spec.encoding.unitName ?? '');
     texts.push(...legend.texts);

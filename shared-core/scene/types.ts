@@ -52,6 +52,8 @@ export interface SceneText {
   weight: 400 | 700;
   anchor: 'start' | 'middle' | 'end';
   color: string;
+  /** Bundled text family; absent: sans (Noto Sans). */
+  family?: 'serif';
   /** Mark id this text describes, if any. */
   owner?: string;
   /** Ink bounds of the outlined text at layout time (page mm), for collision checks. */

@@ -5,7 +5,7 @@
 import { TallyError } from '../errors';
 import { regionToPathData, type Region } from '../geometry/region';
 import type { Scene, SceneLine, SceneMark, SceneText } from '../scene';
-import { mmToPt, textOutline } from '../text';
+import { FONT_FAMILY_NAMES, mmToPt, textOutline } from '../text';
 import { SUMMARY_ID } from './readChartSvg';
 import { toXmlChars } from './xmlChars';
 
@@ -32,7 +32,6 @@ export const SVG_DOCTYPE = [
   ']>',
 ].join('\n');
 
-const FONT_FAMILY = 'Noto Sans';
 const HEX6 = /^#[0-9a-f]{6}$/i;
 
 /**
@@ -192,11 +191,11 @@ function writeText(text: SceneText, num: (n: number, what?: string) => string, d
   if (!outline) {
     return (
       head +
-      `<text${attrs([['x', num(text.xMm)], ['y', num(text.yMm)], ['font-family', FONT_FAMILY], ['font-size', num(text.sizeMm, 'a text size')], ['font-weight', String(text.weight)], ['text-anchor', text.anchor], ['fill', fill]])}>` +
+      `<text${attrs([['x', num(text.xMm)], ['y', num(text.yMm)], ['font-family', FONT_FAMILY_NAMES[text.family ?? 'sans']], ['font-size', num(text.sizeMm, 'a text size')], ['font-weight', String(text.weight)], ['text-anchor', text.anchor], ['fill', fill]])}>` +
       `${escapeXmlText(text.text)}</text></g>`
     );
   }
-  const shape = textOutline(text.text, { xMm: text.xMm, yMm: text.yMm, sizeMm: text.sizeMm, weight: text.weight, anchor: text.anchor, decimals });
+  const shape = textOutline(text.text, { xMm: text.xMm, yMm: text.yMm, sizeMm: text.sizeMm, weight: text.weight, family: text.family ?? 'sans', anchor: text.anchor, decimals });
   if (!shape.pathData) return '';
   return head + `<path${attrs([['fill', fill], ['d', shape.pathData]])}/></g>`;
 }

@@ -11,8 +11,8 @@ import { checkStyle, type TextStyle } from './textOptions';
  * glyphs with a space between them, and advances and kerning are whole font units.
  */
 export function breakLines(text: string, maxWidthMm: number, style: TextStyle): string[] {
-  const { sizeMm, weight } = checkStyle(style);
-  const face = loadFontFace(weight);
+  const { sizeMm, weight, family } = checkStyle(style);
+  const face = loadFontFace(weight, family);
   const space = layoutLine(face, ' ').glyphs[0].glyph;
   const spaceAdvance = space.advanceWidth ?? 0;
   const widthMm = (units: number) => (units * sizeMm) / face.unitsPerEm;

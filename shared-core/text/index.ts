@@ -1,5 +1,5 @@
 // Text as filled outlines from the bundled Noto Sans, in page millimetres.
-export { loadFont, type FontWeight } from './loadFont';
+export { loadFont, FONT_FAMILY_NAMES, type FontWeight, type TextFamily } from './loadFont';
 export { measureText, type TextMetrics } from './measureText';
 export { textOutline, type TextOutline } from './textOutline';
 export { breakLines } from './breakLines';

@@ -1,9 +1,11 @@
-// The bundled Noto Sans faces, decoded and parsed once on first use.
+// The bundled text faces (Noto Sans, and Noto Serif for the serif choice), decoded and parsed once on first use.
 
 import * as opentypeModule from 'opentype.js';
 import type { Font } from 'opentype.js';
 import { notoSans400Base64 } from '../../assets/fonts/noto-sans-400';
 import { notoSans700Base64 } from '../../assets/fonts/noto-sans-700';
+import { notoSerif400Base64 } from '../../assets/fonts/noto-serif-400';
+import { notoSerif700Base64 } from '../../assets/fonts/noto-serif-700';
 import { TallyError } from '../errors';
 import { decodeBase64 } from './decodeBase64';
 import { readPairKerning, type PairKerning } from './readPairKerning';
@@ -14,6 +16,10 @@ const opentype: typeof opentypeModule =
   (opentypeModule as unknown as { default?: typeof opentypeModule }).default ?? opentypeModule;
 
 export type FontWeight = 400 | 700;
+/** The bundled text families: Noto Sans (default) and Noto Serif, both SIL Open Font License. */
+export type TextFamily = 'sans' | 'serif';
+/** The family name each bundled face is written under when text is not outlined. */
+export const FONT_FAMILY_NAMES: Readonly<Record<TextFamily, string>> = Object.freeze({ sans: 'Noto Sans', serif: 'Noto Serif' });
 
 /** A parsed face with what layout needs beside opentype.js. */
 export interface FontFace {
@@ -29,24 +35,31 @@ export interface FontFace {
   capHeightUnits: number;
 }
 
-const faceBase64: Record<FontWeight, string> = { 400: notoSans400Base64, 700: notoSans700Base64 };
-const faces = new Map<FontWeight, FontFace>();
+const faceBase64: Record<TextFamily, Record<FontWeight, string>> = {
+  sans: { 400: notoSans400Base64, 700: notoSans700Base64 },
+  serif: { 400: notoSerif400Base64, 700: notoSerif700Base64 },
+};
+const faces = new Map<string, FontFace>();
 
 /** The opentype.js font for a weight of the bundled Noto Sans (latin subset). */
-export function loadFont(weight: FontWeight): Font {
-  return loadFontFace(weight).font;
+export function loadFont(weight: FontWeight, family: TextFamily = 'sans'): Font {
+  return loadFontFace(weight, family).font;
 }
 
-export function loadFontFace(weight: FontWeight): FontFace {
-  const cached = faces.get(weight);
+export function loadFontFace(weight: FontWeight, family: TextFamily = 'sans'): FontFace {
+  const key = `${family}-${weight}`;
+  const cached = faces.get(key);
   if (cached) return cached;
   if (weight !== 400 && weight !== 700) {
     throw new TallyError('usage', `Text weight ${String(weight)} is not available: use 400 (regular) or 700 (bold).`);
   }
-  const sfnt = decodeBase64(faceBase64[weight]);
+  if (family !== 'sans' && family !== 'serif') {
+    throw new TallyError('usage', `Text font "${String(family)}" is not bundled: use sans or serif.`);
+  }
+  const sfnt = decodeBase64(faceBase64[family][weight]);
   const font = opentype.parse(sfnt.buffer);
   const face: FontFace = { weight, font, kerning: readPairKerning(sfnt), unitsPerEm: font.unitsPerEm, ...verticalMetrics(font) };
-  faces.set(weight, face);
+  faces.set(key, face);
   return face;
 }
 

@@ -18,9 +18,9 @@ export interface TextMetrics {
 
 /** Measures one line of text. Line breaks are refused; measure each line on its own. */
 export function measureText(text: string, style: TextStyle): TextMetrics {
-  const { sizeMm, weight } = checkStyle(style);
+  const { sizeMm, weight, family } = checkStyle(style);
   rejectLineBreaks(text);
-  const face = loadFontFace(weight);
+  const face = loadFontFace(weight, family);
   const line = layoutLine(face, text);
   return { widthMm: (line.advanceUnits * sizeMm) / face.unitsPerEm, ...verticalMetricsMm(face, sizeMm), warnings: line.warnings };
 }

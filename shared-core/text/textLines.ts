@@ -38,7 +38,7 @@ export interface TextLinesOutline {
  */
 export function textLines(text: string, options: TextLinesOptions): TextLinesOutline {
   const placement = checkPlacement(options);
-  const face = loadFontFace(placement.weight);
+  const face = loadFontFace(placement.weight, placement.family);
   const lineHeightMm = options.lineHeightMm ?? verticalMetricsMm(face, placement.sizeMm).lineHeightMm;
   if (!Number.isFinite(lineHeightMm)) {
     throw new TallyError('number-invalid', `Line height must be a finite number of millimetres, not ${String(lineHeightMm)}.`);

@@ -1,7 +1,7 @@
 // Option types shared by the text functions, and the checks that turn bad options into plain errors.
 
 import { TallyError } from '../errors';
-import type { FontWeight } from './loadFont';
+import type { FontWeight, TextFamily } from './loadFont';
 
 export type TextAnchor = 'start' | 'middle' | 'end';
 
@@ -10,6 +10,8 @@ export interface TextStyle {
   sizeMm: number;
   /** 400 regular (default) or 700 bold. */
   weight?: FontWeight;
+  /** Bundled family, 'sans' (default) or 'serif'. */
+  family?: TextFamily;
 }
 
 export interface TextPlacement extends TextStyle {
@@ -33,25 +35,26 @@ export interface RectMm {
 export interface CheckedPlacement {
   sizeMm: number;
   weight: FontWeight;
+  family: TextFamily;
   xMm: number;
   yMm: number;
   anchor: TextAnchor;
   decimals: number;
 }
 
-export function checkStyle(style: TextStyle): { sizeMm: number; weight: FontWeight } {
-  const { sizeMm, weight = 400 } = style;
+export function checkStyle(style: TextStyle): { sizeMm: number; weight: FontWeight; family: TextFamily } {
+  const { sizeMm, weight = 400, family = 'sans' } = style;
   if (!Number.isFinite(sizeMm) || sizeMm <= 0) {
     throw new TallyError('number-invalid', `Text size must be a positive number of millimetres, not ${String(sizeMm)}.`);
   }
   if (weight !== 400 && weight !== 700) {
     throw new TallyError('usage', `Text weight ${String(weight)} is not available: use 400 (regular) or 700 (bold).`);
   }
-  return { sizeMm, weight };
+  return { sizeMm, weight, family };
 }
 
 export function checkPlacement(options: TextPlacement): CheckedPlacement {
-  const { sizeMm, weight } = checkStyle(options);
+  const { sizeMm, weight, family } = checkStyle(options);
   const { xMm, yMm, anchor = 'start', decimals = 3 } = options;
   if (!Number.isFinite(xMm) || !Number.isFinite(yMm)) {
     throw new TallyError('number-invalid', `Text position must be finite millimetres, not (${String(xMm)}, ${String(yMm)}).`);
@@ -63,7 +66,7 @@ export function checkPlacement(options: TextPlacement): CheckedPlacement {
   if (!Number.isInteger(decimals) || decimals < 0 || decimals > 6) {
     throw new TallyError('usage', `Path decimals must be a whole number from 0 to 6, not ${String(decimals)}.`);
   }
-  return { sizeMm, weight, xMm, yMm, anchor, decimals };
+  return { sizeMm, weight, family, xMm, yMm, anchor, decimals };
 }
 
 export function rejectLineBreaks(text: string): void {

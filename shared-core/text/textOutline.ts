@@ -23,7 +23,7 @@ export interface TextOutline {
 export function textOutline(text: string, options: TextPlacement): TextOutline {
   const placement = checkPlacement(options);
   rejectLineBreaks(text);
-  const face = loadFontFace(placement.weight);
+  const face = loadFontFace(placement.weight, placement.family);
   const { commands: _commands, ...outline } = placeLine(face, layoutLine(face, text), placement, placement.yMm);
   return outline;
 }

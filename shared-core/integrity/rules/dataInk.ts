@@ -22,7 +22,7 @@ const PAPER = /^#(?:fff|ffffff|ffff|ffffffff)$/i;
 
 function textInkMm2(t: SceneText): number {
   if (!t.text.trim()) return 0;
-  const outline = textOutline(t.text, { xMm: t.xMm, yMm: t.yMm, sizeMm: t.sizeMm, weight: t.weight, anchor: t.anchor, decimals: 4 });
+  const outline = textOutline(t.text, { xMm: t.xMm, yMm: t.yMm, sizeMm: t.sizeMm, weight: t.weight, family: t.family ?? 'sans', anchor: t.anchor, decimals: 4 });
   if (!outline.pathData) return 0;
   const tolerance = t.sizeMm * 1e-3;
   const rings = flattenPathData(outline.pathData, IDENTITY, tolerance, newBudget()).map((p) => p.points);

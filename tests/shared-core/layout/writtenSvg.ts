@@ -1,0 +1,100 @@
+// Test helper: what a written chart SVG draws, read back from its text with the writer's documented structure
+// (docs/chart-svg.md): marks as <g class="tg-mark"> of <path data-part data-slot d>, texts as
+// <g class="tg-text" data-role data-size-pt> holding one outline path (or a <text> when outlines are off).
+// Boxes are taken from every coordinate pair of the path data: exact for the glyphs' flattened polygons,
+// and for text outlines including the quadratic control points (a box at most a hair larger than the ink).
+
+export interface BoxMm {
+  x: number;
+  y: number;
+  width: number;
+  height: number;
+}
+
+export interface WrittenPiece {
+  part: string;
+  slot: number | null;
+  box: BoxMm;
+}
+
+export interface WrittenMark {
+  id: string;
+  label: string;
+  value: number;
+  pieces: WrittenPiece[];
+  box: BoxMm;
+}
+
+export interface WrittenText {
+  role: string;
+  sizePt: number;
+  /** Outline bounds (outlined text) or null for <text>. */
+  box: BoxMm | null;
+  /** The characters of a <text> element (outlines off), else null. */
+  content: string | null;
+  /** The outline path data, for comparing two writes. */
+  pathData: string | null;
+}
+
+function unescape(s: string): string {
+  return s.replace(/&quot;/g, '"').replace(/&lt;/g, '<').replace(/&gt;/g, '>').replace(/&#(\d+);/g, (_, n: string) => String.fromCodePoint(Number(n))).replace(/&amp;/g, '&');
+}
+
+function attr(tag: string, name: string): string | null {
+  const m = new RegExp(`\\s${name}="([^"]*)"`).exec(tag);
+  return m ? unescape(m[1]) : null;
+}
+
+export function pathBox(d: string): BoxMm | null {
+  const nums = (d.match(/-?\d*\.?\d+(?:e-?\d+)?/gi) ?? []).map(Number);
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  for (let i = 0; i + 1 < nums.length; i += 2) {
+    minX = Math.min(minX, nums[i]); maxX = Math.max(maxX, nums[i]);
+    minY = Math.min(minY, nums[i + 1]); maxY = Math.max(maxY, nums[i + 1]);
+  }
+  return Number.isFinite(minX) ? { x: minX, y: minY, width: maxX - minX, height: maxY - minY } : null;
+}
+
+export function unionBox(boxes: readonly BoxMm[]): BoxMm {
+  const minX = Math.min(...boxes.map((b) => b.x));
+  const minY = Math.min(...boxes.map((b) => b.y));
+  const maxX = Math.max(...boxes.map((b) => b.x + b.width));
+  const maxY = Math.max(...boxes.map((b) => b.y + b.height));
+  return { x: minX, y: minY, width: maxX - minX, height: maxY - minY };
+}
+
+/** The marks in file order; the file must be written without <use> references (the default). */
+export function writtenMarks(svg: string): WrittenMark[] {
+  const out: WrittenMark[] = [];
+  const groups = svg.matchAll(/<g id="([^"]+)" class="tg-mark"([^>]*)>([\s\S]*?)<\/g>/g);
+  for (const g of groups) {
+    const pieces: WrittenPiece[] = [];
+    for (const p of g[3].matchAll(/<path[^>]*>/g)) {
+      const d = attr(p[0], 'd');
+      const box = d ? pathBox(d) : null;
+      if (!box) continue;
+      const slot = attr(p[0], 'data-slot');
+      pieces.push({ part: attr(p[0], 'data-part') ?? '', slot: slot === null ? null : Number(slot), box });
+    }
+    const head = `<g${g[2]}>`;
+    out.push({ id: g[1], label: attr(head, 'data-label') ?? '', value: Number(attr(head, 'data-value')), pieces, box: unionBox(pieces.map((p) => p.box)) });
+  }
+  return out;
+}
+
+export function writtenTexts(svg: string): WrittenText[] {
+  const out: WrittenText[] = [];
+  for (const g of svg.matchAll(/<g class="tg-text"([^>]*)>([\s\S]*?)<\/g>/g)) {
+    const head = `<g${g[1]}>`;
+    const d = /<path[^>]*\sd="([^"]*)"/.exec(g[2]);
+    const t = /<text[^>]*>([\s\S]*?)<\/text>/.exec(g[2]);
+    out.push({
+      role: attr(head, 'data-role') ?? '',
+      sizePt: Number(attr(head, 'data-size-pt')),
+      box: d ? pathBox(d[1]) : null,
+      content: t ? unescape(t[1]) : null,
+      pathData: d ? d[1] : null,
+    });
+  }
+  return out;
+}
