@@ -336,7 +336,7 @@ export function verifySvg(svgText: string, opts: VerifyOptions = {}): VerifyRepo
   // ---- stack pitch, measured from the positions of successive slots
   const pitchByMark = new Map<ChartSvgMark, { pitch: number; start: number; axis: 'x' | 'y' } | null>();
   let chartPitch: number | null = null;
-  if (reading === 'length') chartPitch = measurePitches(markInks, fulls, pitchByMark, problems, notes, summary);
+  if (reading === 'length') chartPitch = measurePitches(markInks, fulls, pitchByMark, problems, notes, summary, stackGrouping(file, problems));
 
   // ---- measure each mark under the reading
   const marks: MarkMeasurement[] = markInks.map((mi) => {
@@ -737,6 +737,34 @@ function checkSameShapeSameSize(
   });
 }
 
+/** Group sizes a stack may be drawn in: fives and tens, as the chart document allows. */
+const GROUP_SIZES = [5, 10];
+
+/**
+ * The stack grouping the file declares on its marks (data-group-every, data-group-gap-mm): one extra gap after
+ * every 5 or 10 slots. Read from the file only; a value outside what the writer can produce is a problem, and
+ * then no grouping is allowed for, so the glyphs must be evenly spaced.
+ */
+function stackGrouping(file: ChartSvgFile, problems: ProblemList): StackGrouping | null {
+  const g = file.grouping;
+  if (!g) return null;
+  if (!GROUP_SIZES.includes(g.every) || !(Number.isFinite(g.gapMm) && g.gapMm > 0 && g.gapMm <= 100)) {
+    problems.add(
+      'uneven-pitch',
+      `The file groups its stacks every ${num(g.every)} glyphs with a ${num(g.gapMm)} mm gap; only groups of 5 or 10 with a gap of up to one glyph pitch are allowed.`,
+      'Group the glyphs in fives or tens with a gap no wider than one glyph pitch, or space them evenly.',
+    );
+    return null;
+  }
+  return { gapMm: g.gapMm, shiftMm: (slot) => Math.floor(slot / g.every) * g.gapMm };
+}
+
+interface StackGrouping {
+  gapMm: number;
+  /** How much further out than an even pitch a slot stands. */
+  shiftMm: (slot: number) => number;
+}
+
 /** Pitch of each stack from the centres of its full glyphs against their slots; checks even spacing and one baseline. */
 function measurePitches(
   markInks: { mark: ChartSvgMark; pieces: PieceInk[] }[],
@@ -745,7 +773,9 @@ function measurePitches(
   problems: ProblemList,
   notes: string[],
   summary: ChartSummary | null,
+  grouping: StackGrouping | null = null,
 ): number | null {
+  const groupShiftMm = grouping?.shiftMm ?? null;
   const centres = new Map<ChartSvgMark, { slot: number; x: number; y: number; box: Box }[]>();
   let missingSlots = false;
   for (const mi of markInks) {
@@ -788,29 +818,33 @@ function measurePitches(
       out.set(mark, null);
       continue;
     }
-    const fit = (key: 'x' | 'y') => {
+    const line = (value: (p: (typeof pts)[number]) => number) => {
       const n = pts.length;
       const mx = pts.reduce((a, p) => a + p.slot, 0) / n;
-      const my = pts.reduce((a, p) => a + p[key], 0) / n;
+      const my = pts.reduce((a, p) => a + value(p), 0) / n;
       let sxy = 0;
       let sxx = 0;
       for (const p of pts) {
-        sxy += (p.slot - mx) * (p[key] - my);
+        sxy += (p.slot - mx) * (value(p) - my);
         sxx += (p.slot - mx) ** 2;
       }
       const slope = sxy / sxx;
       return { slope, start: my - slope * mx };
     };
-    const fx = fit('x');
-    const fy = fit('y');
-    const axis: 'x' | 'y' = Math.abs(fy.slope) >= Math.abs(fx.slope) ? 'y' : 'x';
-    const along = axis === 'y' ? fy : fx;
-    const across = axis === 'y' ? fx : fy;
+    // A grouped stack: each slot stands one group gap further out per group below it, along the stack's axis
+    // and in its direction (the sign of the uncorrected slope); that is taken out before the even-pitch fit.
+    const rx = line((p) => p.x);
+    const ry = line((p) => p.y);
+    const axis: 'x' | 'y' = Math.abs(ry.slope) >= Math.abs(rx.slope) ? 'y' : 'x';
+    const sign = Math.sign((axis === 'y' ? ry : rx).slope);
+    const at = (p: (typeof pts)[number], key: 'x' | 'y') => (groupShiftMm && key === axis ? p[key] - sign * groupShiftMm(p.slot) : p[key]);
+    const along = groupShiftMm ? line((p) => at(p, axis)) : axis === 'y' ? ry : rx;
+    const across = axis === 'y' ? rx : ry;
     const pitch = Math.abs(along.slope);
     const slack = SAME_GLYPH_TOLERANCE * pitch + 1e-3;
     const off = Math.max(
-      ...pts.map((p) => Math.abs(p[axis] - (along.start + along.slope * p.slot))),
-      ...pts.map((p) => Math.abs(p[axis === 'y' ? 'x' : 'y'] - (across.start + across.slope * p.slot))),
+      ...pts.map((p) => Math.abs(at(p, axis) - (along.start + along.slope * p.slot))),
+      ...pts.map((p) => Math.abs(at(p, axis === 'y' ? 'x' : 'y') - (across.start + across.slope * p.slot))),
     );
     if (off > slack) {
       problems.add(
@@ -832,6 +866,13 @@ function measurePitches(
       notes.push('No stack has two whole glyphs and the file records no pitch, so stacks are compared by glyph count.');
     }
   }
+  if (grouping && chartPitch && grouping.gapMm > chartPitch * (1 + SAME_GLYPH_TOLERANCE)) {
+    problems.add(
+      'uneven-pitch',
+      `The stacks are grouped with a ${num(grouping.gapMm)} mm gap, wider than one glyph pitch (${num(chartPitch)} mm); such gaps would lengthen the stacks.`,
+      'Group the glyphs with a gap no wider than one glyph pitch, or space them evenly.',
+    );
+  }
   // Every stack starts from one baseline: the edge of slot 0 that faces the baseline lies at the same place
   // along the stack axis. Edges, not centres, so stacks of different glyphs (ink-matched, so of different
   // heights) standing on one baseline agree.
@@ -846,7 +887,7 @@ function measurePitches(
       const hi = axis === 'y' ? first.box.y + first.box.height : first.box.x + first.box.width;
       const edge = dir < 0 ? hi : lo;
       const pitch = out.get(mark)?.pitch ?? chartPitch;
-      starts.push({ mark, start: edge - dir * pitch * first.slot });
+      starts.push({ mark, start: edge - dir * (pitch * first.slot + (groupShiftMm ? groupShiftMm(first.slot) : 0)) });
     }
     if (starts.length > 1) {
       const ref = starts[0];

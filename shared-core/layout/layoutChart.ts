@@ -227,6 +227,7 @@ function layoutInFamily(given: ChartSpec): Scene {
     shapes: book.shapes(),
   };
   if (result.unitChoice) scene.unitChoice = result.unitChoice;
+  if (result.grouping) scene.grouping = result.grouping;
   if (spec.layout.background) {
     // Painted opaque to the bleed edge; verification then reads marks against it as the paper colour.
     scene.background = opaqueColor(spec.layout.background, scene.warnings, 'The page background');

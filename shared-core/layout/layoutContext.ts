@@ -1,7 +1,7 @@
 // What every mode layout receives and returns, and the glyph-size arithmetic they share.
 import type { ChartSpec } from '../document';
 import type { Warning } from '../errors';
-import type { SceneLegendKey, SceneLine, SceneMark, SceneText, SceneUnitChoice } from '../scene';
+import type { SceneGrouping, SceneLegendKey, SceneLine, SceneMark, SceneText, SceneUnitChoice } from '../scene';
 import type { GlyphBook } from './glyphBook';
 import type { ResolvedGlyph } from './resolveGlyphs';
 
@@ -46,6 +46,21 @@ export interface ModeResult {
   pitchMm?: number;
   baselineYMm?: number;
   unitChoice?: SceneUnitChoice;
+  /** Stack only: the extra gap after every few slots, for the written file. */
+  grouping?: SceneGrouping;
+}
+
+/**
+ * The extra gap that marks groups of glyphs (layout.groupEvery): one more glyph gap, and never less than the
+ * default gap share of the glyph size, so groups still read when the glyphs touch.
+ */
+export function groupGapMm(gapMm: number, glyphSizeMm: number): number {
+  return Math.max(gapMm, 0.2 * glyphSizeMm);
+}
+
+/** How far past an even pitch slot `index` stands: one group gap per completed group before it. */
+export function groupShiftMm(index: number, every: number, gapMm: number): number {
+  return every > 0 ? Math.floor(index / every) * gapMm : 0;
 }
 
 /**

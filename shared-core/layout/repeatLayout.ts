@@ -6,7 +6,7 @@ import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene'
 import { chooseGlyphSize } from './fitSize';
 import { isTallyError } from '../errors';
 import { labelLines, valueLabelText, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
-import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { groupGapMm, groupShiftMm, keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
 import { resolveUnit, withFittingUnit, type GlyphCount } from './resolveUnit';
@@ -28,18 +28,38 @@ interface Grid {
   columns: number;
 }
 
-function gridAt(glyphs: readonly ResolvedGlyph[], glyphSizeMm: number, gapRatio: number): Omit<Grid, 'columns'> {
+/** Columns grouped in fives or tens (layout.groupEvery): 0 for none, and the extra gap after each group. */
+interface Grouping {
+  every: number;
+  groupMm: number;
+}
+
+function gridAt(glyphs: readonly ResolvedGlyph[], glyphSizeMm: number, gapRatio: number, every = 0): Omit<Grid, 'columns'> & Grouping {
   const f = sizePerRootInk(glyphs);
   const root = glyphSizeMm / f.largest;
-  return { cellWMm: root * f.width, cellHMm: root * f.height, gapMm: gapRatio * glyphSizeMm, inkMm2: root * root };
+  const gapMm = gapRatio * glyphSizeMm;
+  return { cellWMm: root * f.width, cellHMm: root * f.height, gapMm, inkMm2: root * root, every, groupMm: groupGapMm(gapMm, glyphSizeMm) };
 }
 
-function autoColumns(widthMm: number, cellWMm: number, gapMm: number, most: number): number {
-  return Math.max(1, Math.min(Math.max(1, most), Math.floor((widthMm + gapMm + EPS_MM) / (cellWMm + gapMm))));
+function autoColumns(widthMm: number, g: { cellWMm: number; gapMm: number } & Partial<Grouping>, most: number): number {
+  let columns = Math.max(1, Math.min(Math.max(1, most), Math.floor((widthMm + g.gapMm + EPS_MM) / (g.cellWMm + g.gapMm))));
+  const every = g.every ?? 0;
+  if (every > 0) {
+    // Group gaps take room too; and a row that wraps holds whole groups, so groups line up down the rows.
+    while (columns > 1 && gridWidthMm(columns, g) > widthMm + EPS_MM) columns--;
+    if (most > columns && columns >= every) columns -= columns % every;
+  }
+  return columns;
 }
 
-function gridWidthMm(columns: number, g: { cellWMm: number; gapMm: number }): number {
-  return columns * g.cellWMm + (columns - 1) * g.gapMm;
+function gridWidthMm(columns: number, g: { cellWMm: number; gapMm: number } & Partial<Grouping>): number {
+  return columns * g.cellWMm + (columns - 1) * g.gapMm + groupShiftMm(columns - 1, g.every ?? 0, g.groupMm ?? 0);
+}
+
+/** Left edge of the cell in reading column `k` from the grid's left, mirrored for right-to-left rows. */
+function columnXMm(k: number, columns: number, g: { cellWMm: number; gapMm: number } & Grouping, direction: CutDirection): number {
+  const fromStart = k * (g.cellWMm + g.gapMm) + groupShiftMm(k, g.every, g.groupMm);
+  return direction === 'rtl' ? gridWidthMm(columns, g) - fromStart - g.cellWMm : fromStart;
 }
 
 function cutDirection(direction: string): CutDirection {
@@ -111,8 +131,8 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
 
 
   const plan = (sizeMm: number) => {
-    const g = gridAt(glyphs, sizeMm, layout.gapRatio);
-    const columns = layout.columns === 'auto' ? autoColumns(gridRoomMm, g.cellWMm, g.gapMm, mostSlots) : layout.columns;
+    const g = gridAt(glyphs, sizeMm, layout.gapRatio, layout.groupEvery ?? 0);
+    const columns = layout.columns === 'auto' ? autoColumns(gridRoomMm, g, mostSlots) : layout.columns;
     const offsetMm = Math.max(0, (firstLineMm - g.cellHMm) / 2);
     const rowsPer = slots.map((n) => Math.max(1, Math.ceil(n / columns)));
     // The first label line is centred on the first glyph row; further lines hang below it.
@@ -150,8 +170,8 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     const rowTopMm = topMm + p.offsetMm;
     const pieces: SceneGlyph[] = [];
     for (let j = 0; j < slots[i]; j++) {
-      const { row: r, column: c } = slotCell(j, p.columns, p.rowsPer[i], direction);
-      const x = gridXMm + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+      const { row: r } = slotCell(j, p.columns, p.rowsPer[i], direction);
+      const x = gridXMm + columnXMm(j % p.columns, p.columns, p, direction) + (p.cellWMm - shape.widthMm) / 2;
       const y = rowTopMm + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
       if (j < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1 });
       else pieces.push({ region: book.band(shape, 0, count.partial, direction, x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial });
@@ -209,14 +229,14 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const valueWMm = layout.valueLabels ? Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
 
   const plan = (sizeMm: number) => {
-    const g = gridAt([glyph], sizeMm, layout.gapRatio);
+    const g = gridAt([glyph], sizeMm, layout.gapRatio, layout.groupEvery ?? 0);
     // The key list at the right: a unit glyph in each category's colour, its label and value.
     const listWMm = listed ? 4 + g.cellWMm + 2 + labelWMm + (layout.valueLabels ? (layout.labels ? 2 : 0) + valueWMm : 0) : 0;
     const roomMm = box.width - listWMm;
-    let columns = layout.columns === 'auto' ? autoColumns(roomMm, g.cellWMm, g.gapMm, slotCount) : layout.columns;
+    let columns = layout.columns === 'auto' ? autoColumns(roomMm, g, slotCount) : layout.columns;
     const gridRows = Math.max(1, Math.ceil(slotCount / columns));
-    // As few columns as keep the same number of rows: a less ragged last row.
-    if (layout.columns === 'auto' && slotCount > 0) columns = Math.ceil(slotCount / gridRows);
+    // As few columns as keep the same number of rows: a less ragged last row (grouped rows keep whole groups).
+    if (layout.columns === 'auto' && slotCount > 0 && !(g.every > 0 && gridRows > 1)) columns = Math.ceil(slotCount / gridRows);
     const gridHMm = gridRows * g.cellHMm + (gridRows - 1) * g.gapMm;
     const entryMm = textBlockMm.map((t) => Math.max(g.cellHMm, t));
     const listHMm = listed ? entryMm.reduce((a, b) => a + b, 0) + (rows.length - 1) * g.gapMm : 0;
@@ -242,8 +262,8 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   // Runs are contiguous and in order, so one cursor finds the runs touching each slot (slots + rows, not slots × rows).
   let first = 0;
   for (let j = 0; j < slotCount; j++) {
-    const { row: r, column: c } = slotCell(j, p.columns, p.gridRows, direction);
-    const x = originX + c * (p.cellWMm + p.gapMm) + (p.cellWMm - shape.widthMm) / 2;
+    const { row: r } = slotCell(j, p.columns, p.gridRows, direction);
+    const x = originX + columnXMm(j % p.columns, p.columns, p, direction) + (p.cellWMm - shape.widthMm) / 2;
     const y = originY + r * (p.cellHMm + p.gapMm) + p.cellHMm - shape.heightMm;
     while (first < rows.length && starts[first] + counts[first].drawn <= j) first++;
     for (let i = first; i < rows.length && starts[i] < j + 1; i++) {

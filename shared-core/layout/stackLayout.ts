@@ -6,7 +6,7 @@ import { chooseUnit } from './chooseUnit';
 import { chooseGlyphSize } from './fitSize';
 import type { NoRoomDetails } from './noRoom';
 import { labelLines, valueLabelText, lineMetrics, linesHeightMm, linesWidthMm, makeLines, makeText, MIN_TEXT_SIZE_MM, textWidthMm, TEXT_SIZE_MM } from './labels';
-import { keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
+import { groupGapMm, groupShiftMm, keyGlyphs, sizePerRootInk, type LayoutContext, type ModeResult } from './layoutContext';
 import { LEGEND_GAP_MM, placeUnitLegend, unitLegendHeightMm, unitLegendText } from './legend';
 import { INK_COLORS } from './palette';
 import { resolveUnit, withFittingUnit, type UnitOptions } from './resolveUnit';
@@ -35,6 +35,8 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
   const keys = keyGlyphs(ctx);
   const keyFactor = sizePerRootInk(keys);
   const n = rows.length;
+  // Grouping in fives or tens: one extra gap after every group, written on the marks for the verifier.
+  const every = layout.groupEvery ?? 0;
 
   // Labels sit under their columns. Too wide for an equal share of the width: break them at spaces
   // first, then shrink them (never below the print minimum) if a single word is still too wide; a
@@ -63,13 +65,14 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
     const gapMm = layout.gapRatio * sizeMm;
     const inkMm2 = root * root;
     const pitchMm = cellHMm + gapMm;
+    const groupMm = groupGapMm(gapMm, sizeMm);
     const columnWMm = rows.map((_, i) => Math.max(cellWMm, labelWMm[i], valueWMm[i]));
     const columnGapMm = Math.max(gapMm, MIN_COLUMN_GAP_MM);
     const widthMm = columnWMm.reduce((a, w) => a + w, 0) + (n - 1) * columnGapMm;
-    const stackMm = (mostSlots - 1) * pitchMm + cellHMm;
+    const stackMm = (mostSlots - 1) * pitchMm + groupShiftMm(mostSlots - 1, every, groupMm) + cellHMm;
     const legendMm = layout.legend ? unitLegendHeightMm(root * keyFactor.height) : 0;
     const heightMm = aboveMm + stackMm + belowMm + legendMm;
-    return { cellWMm, cellHMm, gapMm, inkMm2, pitchMm, columnWMm, columnGapMm, widthMm, stackMm, heightMm };
+    return { cellWMm, cellHMm, gapMm, groupMm, inkMm2, pitchMm, columnWMm, columnGapMm, widthMm, stackMm, heightMm };
   };
   const explain = (smallestMm: number) => {
     const q = plan(smallestMm);
@@ -111,14 +114,14 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
     const pieces: SceneGlyph[] = [];
     const count = counts[i];
     for (let k = 0; k < slots[i]; k++) {
-      const y = baselineYMm - k * p.pitchMm - shape.heightMm;
+      const y = baselineYMm - k * p.pitchMm - groupShiftMm(k, every, p.groupMm) - shape.heightMm;
       if (k < count.full) pieces.push({ ...book.full(shape, x, y), glyph: row.glyph.name, part: 'full', fraction: 1, slot: k });
       else pieces.push({ region: book.band(shape, 0, count.partial, 'btt', x, y), glyph: row.glyph.name, part: 'partial', fraction: count.partial, slot: k });
     }
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'length', glyphs: pieces, intended: count.drawn * p.pitchMm });
 
     if (layout.valueLabels) {
-      const top = slots[i] > 0 ? baselineYMm - (slots[i] - 1) * p.pitchMm - p.cellHMm : baselineYMm;
+      const top = slots[i] > 0 ? baselineYMm - (slots[i] - 1) * p.pitchMm - groupShiftMm(slots[i] - 1, every, p.groupMm) - p.cellHMm : baselineYMm;
       texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: centreXMm, yMm: top - TEXT_GAP_MM - vm.descentMm, sizeMm: TEXT_SIZE_MM.valueLabel, anchor: 'middle', color: INK_COLORS.muted, owner: row.id }));
     }
     if (layout.labels) {
@@ -141,5 +144,8 @@ function stackWithUnit(ctx: LayoutContext, opts: UnitOptions): ModeResult {
     texts.push(...legend.texts);
     legendKeys.push(...legend.legendKeys);
   }
-  return { marks, texts, lines, legendKeys, unit: unit.unit, unitGlyphInkMm2: p.inkMm2, pitchMm: p.pitchMm, baselineYMm, unitChoice: unit.choice };
+  const result: ModeResult = { marks, texts, lines, legendKeys, unit: unit.unit, unitGlyphInkMm2: p.inkMm2, pitchMm: p.pitchMm, baselineYMm, unitChoice: unit.choice };
+  // Only a stack taller than one group shows a group gap; others are written exactly as without grouping.
+  if (every > 0 && mostSlots > every) result.grouping = { every, gapMm: p.groupMm };
+  return result;
 }

@@ -115,6 +115,13 @@ export interface Scene {
   shapes?: Record<string, Region>;
   /** Repeat and stack: the unit used, whether the layout chose it, and what rounding to whole glyphs costs per category. */
   unitChoice?: SceneUnitChoice;
+  /** Stack glyphs grouped with one extra gap after every `every` slots; written on the marks so a verifier can allow for it. */
+  grouping?: SceneGrouping;
+}
+
+export interface SceneGrouping {
+  every: number;
+  gapMm: number;
 }
 
 export interface SceneUnitChoice {

@@ -62,6 +62,8 @@ export interface ChartSvgFile {
   backgrounds: XmlElement[];
   /** data-baseline-y of the marks' parent, in user units; null when absent. */
   baselineY: number | null;
+  /** data-group-every and data-group-gap-mm of the marks' parent: stack slots grouped with one extra gap; null when absent. */
+  grouping: { every: number; gapMm: number } | null;
   warnings: Warning[];
 }
 
@@ -209,6 +211,7 @@ export function readChartSvg(svgText: string, limits: Partial<XmlLimits> = {}): 
   const rules: XmlElement[] = [];
   const backgrounds: XmlElement[] = [];
   let baselineY: number | null = null;
+  let grouping: { every: number; gapMm: number } | null = null;
 
   const walk = (el: XmlElement) => {
     if (NOT_DRAWN.has(el.name)) return;
@@ -219,6 +222,10 @@ export function readChartSvg(svgText: string, limits: Partial<XmlLimits> = {}): 
     if (hasClass(el, 'tg-marks')) {
       const y = numberAttr(el, 'data-baseline-y');
       if (y !== null && Number.isFinite(y)) baselineY = y;
+      const every = numberAttr(el, 'data-group-every');
+      const gapMm = numberAttr(el, 'data-group-gap-mm');
+      // Read as written; verification decides whether the values are allowed.
+      if (every !== null && gapMm !== null) grouping = { every, gapMm };
     }
     if (hasClass(el, 'tg-legend-key')) {
       const unitValue = numberAttr(el, 'data-unit-value');
@@ -260,5 +267,5 @@ export function readChartSvg(svgText: string, limits: Partial<XmlLimits> = {}): 
     throw new TallyError('document-invalid', `Mark "${marks[0].id}" is read by ${reading} but mark "${other.id}" by ${other.reading}; one chart is read one way.`);
   }
   const summary = readSummary(root, warnings);
-  return { root, page, summary, marks, reading, legendKeys, texts, rules, backgrounds, baselineY, warnings };
+  return { root, page, summary, marks, reading, legendKeys, texts, rules, backgrounds, baselineY, grouping, warnings };
 }

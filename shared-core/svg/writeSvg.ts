@@ -32,6 +32,9 @@ export const SVG_DOCTYPE = [
   ']>',
 ].join('\n');
 
+/** Stack grouping (docs/chart-svg.md): one extra gap of data-group-gap-mm after every data-group-every slots. */
+const GROUPING_ATTLIST = '<!ATTLIST g data-group-every CDATA #IMPLIED data-group-gap-mm CDATA #IMPLIED>';
+
 const HEX6 = /^#[0-9a-f]{6}$/i;
 
 /**
@@ -106,7 +109,8 @@ export function writeSvg(scene: Scene, opts: WriteSvgOptions = {}): string {
 
   const out: string[] = [];
   out.push('<?xml version="1.0" encoding="UTF-8" standalone="no"?>');
-  out.push(SVG_DOCTYPE);
+  // The grouping attributes are declared only in files that carry them, so every other file keeps its doctype.
+  out.push(scene.grouping ? SVG_DOCTYPE.replace(/\n\]>$/, `\n${GROUPING_ATTLIST}\n]>`) : SVG_DOCTYPE);
   out.push(
     `<svg xmlns="http://www.w3.org/2000/svg" xmlns:xlink="http://www.w3.org/1999/xlink" version="1.1"` +
       attrs([
@@ -130,7 +134,15 @@ export function writeSvg(scene: Scene, opts: WriteSvgOptions = {}): string {
   }
 
   const baseline = scene.summary.baselineYMm;
-  out.push(`<g${attrs([['class', 'tg-marks'], ['data-baseline-y', baseline !== undefined ? num(baseline, 'a baseline') : undefined]])}>`);
+  const grouping = scene.grouping;
+  out.push(
+    `<g${attrs([
+      ['class', 'tg-marks'],
+      ['data-baseline-y', baseline !== undefined ? num(baseline, 'a baseline') : undefined],
+      ['data-group-every', grouping ? String(grouping.every) : undefined],
+      ['data-group-gap-mm', grouping ? exact(grouping.gapMm, 'a group gap') : undefined],
+    ])}>`,
+  );
   for (const mark of scene.marks) out.push(...writeMark(mark, defined, num, decimals));
   out.push('</g>');
 
