@@ -157,6 +157,14 @@ describe.skipIf(!haveChromium)(`layout and style controls in Chromium (skipped w
     expect(row.length).toBeGreaterThan(2);
     for (let i = 1; i < row.length; i++) expect(row[i].box.x - (row[i - 1].box.x + row[i - 1].box.width)).toBeCloseTo(3, 2);
     await shot(page, 'style-03-size-gap');
+
+    // Grouped in fives: one extra gap after every fifth glyph of a row (the document contract), so 6 mm there.
+    await radio(page, 'group-group', 'In fives').click();
+    const grouped = marksOf(await exportSvg(page)).find((m) => m.label === BIKES.data[0].label)!.pieces;
+    const firstRow = grouped.filter((p) => Math.abs(p.box.y + p.box.height - (grouped[0].box.y + grouped[0].box.height)) < 0.5);
+    expect(firstRow.length).toBeGreaterThanOrEqual(6);
+    const gaps = firstRow.slice(1).map((p, i) => p.box.x - (firstRow[i].box.x + firstRow[i].box.width));
+    gaps.slice(0, 5).forEach((g, i) => expect(g, `gap after glyph ${i + 1}`).toBeCloseTo(i === 4 ? 6 : 3, 2));
   });
 
   it('glyphs per row wraps each category after that many glyphs; right to left puts the partial glyph on the left of its row', async () => {
