@@ -56,11 +56,24 @@ const SHRINK_STEP = 0.9;
  * reach the print minimum; any overlap left is reported as a warning. Earlier texts win over later ones.
  */
 export function resolveLabelCollisions(scene: Pick<Scene, 'marks' | 'legendKeys' | 'texts'>): { texts: SceneText[]; warnings: Warning[] } {
-  const obs = obstacles(scene).map((o) => o.box);
+  // A mark's box is checked first; only a text inside it is checked against the mark's pieces, so a value label
+  // beside the last glyph of a wrapped row (inside the mark's box, clear of its ink) is not taken for a clash.
+  const pieceBoxes = new Map<string, Box[]>();
+  const piecesOf = (id: string): Box[] => {
+    let list = pieceBoxes.get(id);
+    if (!list) {
+      const mark = scene.marks.find((m) => m.id === id);
+      list = (mark?.glyphs ?? []).map((g) => boxOf(g.region));
+      pieceBoxes.set(id, list);
+    }
+    return list;
+  };
+  const obs = obstacles(scene);
+  const hits = (box: Box, o: (typeof obs)[number]) => boxesOverlap(box, o.box) && (o.kind !== 'mark' || piecesOf(String(o.other)).some((p) => boxesOverlap(box, p)));
   const placed: Box[] = [];
   const texts: SceneText[] = [];
   const warnings: Warning[] = [];
-  const clashes = (box: Box) => obs.some((o) => boxesOverlap(box, o)) || placed.some((p) => boxesOverlap(box, p));
+  const clashes = (box: Box) => obs.some((o) => hits(box, o)) || placed.some((p) => boxesOverlap(box, p));
   for (const original of scene.texts) {
     let text = original;
     let box = textBox(text);

@@ -120,7 +120,8 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, labelSizeMm) : []));
   const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
   const valueColMm = layout.valueLabels ? VALUE_PAD_MM + Math.max(...valueTexts.map((t) => textWidthMm(t, valueSizeMm))) : 0;
-  const gridXMm = box.x + labelColMm;
+  // Right-to-left rows end at the left, so their values stand between the labels and the grid.
+  const gridXMm = box.x + labelColMm + (direction === 'rtl' ? valueColMm : 0);
   const gridRoomMm = box.width - labelColMm - valueColMm;
   const slots = counts.map(slotsOf);
   const mostSlots = Math.max(1, ...slots);
@@ -181,12 +182,22 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     const baselineMm = rowTopMm + p.cellHMm / 2 + lm.capHeightMm / 2;
     if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: labelSizeMm, owner: row.id }, labelText[i], lm.lineHeightMm));
     if (layout.valueLabels) {
-      // On one left-to-right row the value follows the ink of its last glyph, like a bar-end label (a partial
-      // glyph's cut edge, not its empty slot); otherwise it stands after the grid.
-      const oneRow = slots[i] <= p.columns && direction === 'ltr';
-      const inkEndMm = pieces.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
-      const endMm = oneRow ? (Number.isFinite(inkEndMm) ? inkEndMm : gridXMm) : gridXMm + fullWidthMm;
-      texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: baselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
+      // The value follows the ink of the category's last glyph, like a bar-end label (a partial glyph's cut
+      // edge, not its empty slot), on the grid row that glyph stands in: after the ink's right edge, or for
+      // right-to-left rows before its left edge.
+      const lastSlot = slots[i] - 1;
+      const lastRow = lastSlot >= 0 ? slotCell(lastSlot, p.columns, p.rowsPer[i], direction).row : 0;
+      const inRow = lastSlot >= 0 ? pieces.slice(lastSlot - (lastSlot % p.columns)) : [];
+      const rowBaselineMm = baselineMm + lastRow * (p.cellHMm + p.gapMm);
+      if (direction === 'rtl') {
+        const inkStartMm = inRow.reduce((start, g) => g.region.reduce((s, ring) => ring.reduce((x, pt) => Math.min(x, pt.x), s), start), Infinity);
+        const startMm = Number.isFinite(inkStartMm) ? inkStartMm : gridXMm + fullWidthMm;
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.min(gridXMm + fullWidthMm, startMm) - VALUE_PAD_MM, yMm: rowBaselineMm, sizeMm: valueSizeMm, anchor: 'end', color: INK_COLORS.muted, owner: row.id }));
+      } else {
+        const inkEndMm = inRow.reduce((end, g) => g.region.reduce((e, ring) => ring.reduce((x, pt) => Math.max(x, pt.x), e), end), -Infinity);
+        const endMm = Number.isFinite(inkEndMm) ? inkEndMm : gridXMm;
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: Math.max(gridXMm, endMm) + VALUE_PAD_MM, yMm: rowBaselineMm, sizeMm: valueSizeMm, color: INK_COLORS.muted, owner: row.id }));
+      }
     }
     topMm += p.bandMm[i] + bandGapMm;
   });
@@ -287,9 +298,13 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
       legendKeys.push({ glyph: glyph.name, region: book.full(shape, listXMm + (p.cellWMm - shape.widthMm) / 2, keyYMm).region, color: row.color, unitValue: unit, unitName: spec.encoding.unitName ?? '' });
       const baselineMm = topMm + (entryMm - textBlockMm[i]) / 2 + lm.ascentMm;
       const textXMm = listXMm + p.cellWMm + 2;
-      if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: textXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, weight: 700, owner: row.id }, labelText[i], lm.lineHeightMm));
+      const labelLinesDrawn = layout.labels ? makeLines({ role: 'label', text: row.label, xMm: textXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.label, weight: 700, owner: row.id }, labelText[i], lm.lineHeightMm) : [];
+      texts.push(...labelLinesDrawn);
       if (layout.valueLabels) {
-        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: textXMm + (layout.labels ? labelWMm + 2 : 0), yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
+        // The value follows its own label's ink on the same line, not a column after the longest label.
+        const firstLine = labelLinesDrawn[0]?.bboxMm;
+        const valueXMm = firstLine && firstLine.width > 0 ? firstLine.x + firstLine.width + VALUE_PAD_MM : textXMm;
+        texts.push(makeText({ role: 'value-label', text: valueTexts[i], xMm: valueXMm, yMm: baselineMm, sizeMm: TEXT_SIZE_MM.valueLabel, color: INK_COLORS.muted, owner: row.id }));
       }
       topMm += entryMm + p.gapMm;
     });

@@ -34,6 +34,8 @@ export interface WrittenText {
   content: string | null;
   /** The outline path data, for comparing two writes. */
   pathData: string | null;
+  /** Pen position and anchor of a <text> element (outlines off), else null. */
+  pen: { xMm: number; yMm: number; anchor: string } | null;
 }
 
 function unescape(s: string): string {
@@ -87,13 +89,14 @@ export function writtenTexts(svg: string): WrittenText[] {
   for (const g of svg.matchAll(/<g class="tg-text"([^>]*)>([\s\S]*?)<\/g>/g)) {
     const head = `<g${g[1]}>`;
     const d = /<path[^>]*\sd="([^"]*)"/.exec(g[2]);
-    const t = /<text[^>]*>([\s\S]*?)<\/text>/.exec(g[2]);
+    const t = /<text([^>]*)>([\s\S]*?)<\/text>/.exec(g[2]);
     out.push({
       role: attr(head, 'data-role') ?? '',
       sizePt: Number(attr(head, 'data-size-pt')),
       box: d ? pathBox(d[1]) : null,
-      content: t ? unescape(t[1]) : null,
+      content: t ? unescape(t[2]) : null,
       pathData: d ? d[1] : null,
+      pen: t ? { xMm: Number(attr(t[1], 'x')), yMm: Number(attr(t[1], 'y')), anchor: attr(t[1], 'text-anchor') ?? 'start' } : null,
     });
   }
   return out;
