@@ -54,6 +54,7 @@ export function TypeLabelsPanel({ doc, dispatch, seal, problems = [] }: TypeLabe
   const valueUnit = layout.valueUnit ?? '';
   const keyWording = layout.keyWording ?? '';
   const counted = doc.encoding.mode === 'repeat' || doc.encoding.mode === 'stack';
+  const rowsOfTheirOwn = doc.encoding.mode === 'repeat' && doc.encoding.arrangement === 'per-category';
 
   const valueUnitProblem =
     characters(valueUnit) > VALUE_UNIT_MAX ? `At most ${VALUE_UNIT_MAX} characters, such as “L” or “kWh”.` : problemAt('valueUnit') ? `The unit ${problemAt('valueUnit')}.` : null;
@@ -84,15 +85,14 @@ export function TypeLabelsPanel({ doc, dispatch, seal, problems = [] }: TypeLabe
         </div>
       </div>
 
-      {layout.labels && (
-        <div className="field-row">
-          <div className="field">
-            <span className="field-label" id="label-position-label">Category labels</span>
-            <RadioGroup labelledBy="label-position-label" options={POSITIONS} value={position} onChange={(labelPosition) => dispatch({ type: 'set-label-position', labelPosition })} testId="label-position-group" />
-          </div>
+      {/* Labels sit beside or above their row only where each category has a row of its own. */}
+      {layout.labels && rowsOfTheirOwn && (
+        <div className="field">
+          <span className="field-label" id="label-position-label">Category labels</span>
+          <RadioGroup labelledBy="label-position-label" options={POSITIONS} value={position} onChange={(labelPosition) => dispatch({ type: 'set-label-position', labelPosition })} testId="label-position-group" />
         </div>
       )}
-      {layout.labels && (
+      {layout.labels && rowsOfTheirOwn && (
         <div className="field">
           <span className="field-label" id="label-align-label">Label alignment</span>
           <RadioGroup labelledBy="label-align-label" options={ALIGNS} value={align} onChange={(labelAlign) => dispatch({ type: 'set-label-align', labelAlign })} testId="label-align-group" />
