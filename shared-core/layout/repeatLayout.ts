@@ -18,6 +18,8 @@ const LABEL_PAD_MM = 3;
 /** Widest a category label may be before it breaks onto more lines, as a share of the chart width. */
 const LABEL_SHARE = 0.3;
 const VALUE_PAD_MM = 2;
+/** Space between a label set above its row and the row's glyphs (common practice, no source). */
+const LABEL_ABOVE_GAP_MM = 1;
 const EPS_MM = 1e-9;
 
 interface Grid {
@@ -116,10 +118,13 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   const lm = lineMetrics(labelSizeMm);
   const vm = lineMetrics(valueSizeMm);
   const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
-  // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
-  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, labelSizeMm) : []));
-  const labelColMm = layout.labels ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
+  // Labels beside their rows (the default) take a column; labels above their rows take a line over each row.
+  const above = layout.labels && layout.labelPosition === 'above';
   const valueColMm = layout.valueLabels ? VALUE_PAD_MM + Math.max(...valueTexts.map((t) => textWidthMm(t, valueSizeMm))) : 0;
+  // Labels longer than a share of the width break onto more lines rather than squeezing the glyphs.
+  const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, above ? Math.max(1, box.width - valueColMm) : box.width * LABEL_SHARE, labelSizeMm) : []));
+  const labelColMm = layout.labels && !above ? Math.max(...labelText.map((l) => linesWidthMm(l, labelSizeMm))) + LABEL_PAD_MM : 0;
+  const labelAboveMm = labelText.map((l) => (above ? linesHeightMm(l.length, lm) + LABEL_ABOVE_GAP_MM : 0));
   // Right-to-left rows end at the left, so their values stand between the labels and the grid.
   const gridXMm = box.x + labelColMm + (direction === 'rtl' ? valueColMm : 0);
   const gridRoomMm = box.width - labelColMm - valueColMm;
@@ -128,7 +133,7 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   const glyphs = [...new Set(rows.map((r) => r.glyph))];
   const keys = keyGlyphs(ctx);
   const keyFactor = sizePerRootInk(keys);
-  const firstLineMm = Math.max(layout.labels ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
+  const firstLineMm = Math.max(layout.labels && !above ? lm.boxHeightMm : 0, layout.valueLabels ? vm.boxHeightMm : 0);
 
 
   const plan = (sizeMm: number) => {
@@ -139,7 +144,9 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     // The first label line is centred on the first glyph row; further lines hang below it.
     const labelTopMm = Math.max(0, offsetMm + g.cellHMm / 2 + lm.capHeightMm / 2 - lm.ascentMm);
     const bandMm = rowsPer.map((r, i) =>
-      Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
+      above
+        ? labelAboveMm[i] + Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, layout.valueLabels ? vm.boxHeightMm : 0)
+        : Math.max(offsetMm + r * g.cellHMm + (r - 1) * g.gapMm, labelTopMm + linesHeightMm(labelText[i].length, lm), layout.valueLabels ? vm.boxHeightMm : 0),
     );
     const bandGapMm = g.gapMm + 1;
     const keyHeightMm = Math.sqrt(g.inkMm2) * keyFactor.height;
@@ -168,7 +175,7 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
   rows.forEach((row, i) => {
     const count = counts[i];
     const shape = shapeFor(row.glyph);
-    const rowTopMm = topMm + p.offsetMm;
+    const rowTopMm = topMm + labelAboveMm[i] + p.offsetMm;
     const pieces: SceneGlyph[] = [];
     for (let j = 0; j < slots[i]; j++) {
       const { row: r } = slotCell(j, p.columns, p.rowsPer[i], direction);
@@ -180,7 +187,15 @@ function perCategoryAt(ctx: LayoutContext, counts: GlyphCount[], unit: number, l
     marks.push({ id: row.id, label: row.dataLabel, value: row.value, color: row.color, reading: 'count', glyphs: pieces, intended: count.drawn });
 
     const baselineMm = rowTopMm + p.cellHMm / 2 + lm.capHeightMm / 2;
-    if (layout.labels) texts.push(...makeLines({ role: 'label', text: row.label, xMm: box.x, yMm: baselineMm, sizeMm: labelSizeMm, owner: row.id }, labelText[i], lm.lineHeightMm));
+    if (layout.labels) {
+      // Beside: in the label column, flush left (as before) or flush against the marks ("end"). Above: over the
+      // grid, from its start or to its end.
+      const alignEnd = layout.labelAlign === 'end';
+      const place = above
+        ? { xMm: alignEnd ? gridXMm + fullWidthMm : gridXMm, yMm: topMm + lm.ascentMm }
+        : { xMm: alignEnd ? box.x + labelColMm - LABEL_PAD_MM : box.x, yMm: baselineMm };
+      texts.push(...makeLines({ role: 'label', text: row.label, ...place, sizeMm: labelSizeMm, anchor: alignEnd ? 'end' : 'start', owner: row.id }, labelText[i], lm.lineHeightMm));
+    }
     if (layout.valueLabels) {
       // The value follows the ink of the category's last glyph, like a bar-end label (a partial glyph's cut
       // edge, not its empty slot), on the grid row that glyph stands in: after the ink's right edge, or for
