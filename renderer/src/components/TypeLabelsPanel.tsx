@@ -50,7 +50,8 @@ export function TypeLabelsPanel({ doc, dispatch, seal, problems = [] }: TypeLabe
   const layout = doc.layout;
   const problemAt = (field: string) => problems.find((p) => p.path === `layout.${field}`)?.message ?? null;
   const position = layout.labelPosition ?? 'beside';
-  const align = layout.labelAlign ?? (position === 'above' ? 'start' : 'end');
+  // Absent, the layout sets labels flush left (shared-core repeatLayout), beside or above.
+  const align = layout.labelAlign ?? 'start';
   const valueUnit = layout.valueUnit ?? '';
   const keyWording = layout.keyWording ?? '';
   const counted = doc.encoding.mode === 'repeat' || doc.encoding.mode === 'stack';

@@ -249,6 +249,35 @@ describe.skipIf(!haveChromium)(`layout and style controls in Chromium (skipped w
     expect(textsOf(svg, 'legend').map((t) => t.text)).toEqual(['5 litres per drop']);
   });
 
+  it('category labels go above their rows or beside them, flush left or flush right', async () => {
+    const page = await openApp();
+    await openDocument(page, 'water.json', WATER);
+    const labels = async () =>
+      [...(await exportSvg(page)).matchAll(/data-role="label"[^>]*><text x="([^"]*)" y="([^"]*)"[^>]*text-anchor="([^"]*)"[^>]*>([^<]*)</g)].map((m) => ({ x: Number(m[1]), y: Number(m[2]), anchor: m[3], text: m[4] }));
+    const beside = await labels();
+    // Beside and flush left (the standard look): every label starts at the left margin (10 mm).
+    expect(beside.map((l) => [l.text, l.anchor, l.x])).toEqual(WATER.data.map((d) => [d.label, 'start', 10]));
+    await radio(page, 'label-align-group', 'Flush right').click();
+    const besideEnd = await labels();
+    // Flush right: anchored at their end, all at one x, right of the margin, on the same baselines as before.
+    expect(new Set(besideEnd.map((l) => l.anchor))).toEqual(new Set(['end']));
+    expect(new Set(besideEnd.map((l) => l.x)).size).toBe(1);
+    expect(besideEnd[0].x).toBeGreaterThan(10);
+    expect(besideEnd.map((l) => l.y)).toEqual(beside.map((l) => l.y));
+    await radio(page, 'label-position-group', 'Above the glyphs').click();
+    await radio(page, 'label-align-group', 'Flush left').click();
+    const svg = await exportSvg(page);
+    const above = await labels();
+    // Above: each label's baseline is at or above the top of its own row's ink (resvg's box of the mark's pieces).
+    const marks = marksOf(svg);
+    for (const l of above) {
+      const inkTop = Math.min(...marks.find((m) => m.label === l.text)!.pieces.map((p) => p.box.y));
+      expect(l.y, l.text).toBeLessThanOrEqual(inkTop + 0.01);
+    }
+    expect(new Set(above.map((l) => l.anchor))).toEqual(new Set(['start']));
+    await shot(page, 'style-07-labels-above');
+  });
+
   it('labels, values and key switch off in the file; the background paints a rect to the bleed edge in the chosen colour', async () => {
     const page = await openApp();
     let svg = await exportSvg(page);
