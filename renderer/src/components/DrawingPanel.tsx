@@ -5,6 +5,7 @@ import type { Arrangement, EncodingMode, FillTo, Rounding } from '../../../share
 import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
 import { formatNumber, nearGlyphNames } from '../editor/editorDocument';
+import { ColorSwatch } from './ColorSwatch';
 import { GlyphPicker, GlyphThumb } from './GlyphPicker';
 import { NumberField } from './NumberField';
 import { RadioGroup, type RadioOption } from './RadioGroup';
@@ -155,18 +156,17 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
         </div>
         <div className="swatches">
           {colors.map((c, i) => (
-            <label key={i} className="swatch" title={`Colour ${i + 1}: ${c}`} style={{ background: c }}>
-              <input
-                type="color"
-                value={c.length === 7 ? c : '#000000'}
-                aria-label={`Colour ${i + 1}`}
-                onChange={(e) => {
-                  const next = [...colors];
-                  next[i] = e.target.value;
-                  dispatch({ type: 'set-colors', colors: next });
-                }}
-              />
-            </label>
+            <ColorSwatch
+              key={i}
+              color={c}
+              label={`Colour ${i + 1}`}
+              onPick={(color) => {
+                const next = [...colors];
+                next[i] = color;
+                dispatch({ type: 'set-colors', colors: next, typing: true });
+              }}
+              onDone={seal}
+            />
           ))}
         </div>
         <p className="field-hint">Colours go to categories in order. Marks print opaque.</p>

@@ -47,7 +47,7 @@ export type Action =
   | { type: 'set-arrangement'; arrangement: Arrangement }
   | { type: 'set-fill-to'; fillTo: FillTo }
   /** null: the default palette. */
-  | { type: 'set-colors'; colors: string[] | null }
+  | { type: 'set-colors'; colors: string[] | null; typing?: boolean }
   | { type: 'set-page-size'; width: number; height: number }
   | { type: 'set-page-unit'; unit: PageUnit }
   | { type: 'set-margins'; margins: MarginsMm }
@@ -390,6 +390,7 @@ export function coalesceKey(action: Action): string | null {
       return action.typing ? 'set-unit:typing' : null;
     case 'set-row-color':
       return action.typing ? `${action.type}:${action.rowId}:typing` : null;
+    case 'set-colors':
     case 'set-background':
     case 'set-glyph-size':
     case 'set-gap':

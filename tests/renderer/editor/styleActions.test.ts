@@ -145,6 +145,10 @@ describe('style actions', () => {
     h = historyReducer(h, { type: 'perform', action: { type: 'set-sort', sort: 'ascending' } });
     expect(h.past).toHaveLength(5);
     expect(coalesceKey({ type: 'set-font', font: 'serif' })).toBeNull();
+    // A drag in a palette swatch's or the background's picker is one step too.
+    expect(coalesceKey({ type: 'set-colors', colors: ['#111111'], typing: true })).toBe(coalesceKey({ type: 'set-colors', colors: ['#222222'], typing: true }));
+    expect(coalesceKey({ type: 'set-background', background: '#111111', typing: true })).not.toBeNull();
+    expect(coalesceKey({ type: 'set-colors', colors: ['#111111'] })).toBeNull();
 
     // Undo walks back one visit at a time.
     h = historyReducer(h, { type: 'undo' });
