@@ -17,6 +17,8 @@ import { DrawingPanel } from './components/DrawingPanel';
 import { HonestyPanel, type HonestyState, type OneClickFix } from './components/HonestyPanel';
 import { BrandMark, Icon } from './components/Icon';
 import { PagePanel } from './components/PagePanel';
+import { SizeOrderPanel } from './components/SizeOrderPanel';
+import { TypeLabelsPanel } from './components/TypeLabelsPanel';
 import { Preview } from './components/Preview';
 import { PdfExportDialog } from './components/PdfExportDialog';
 import { RecoveryBanner } from './components/RecoveryBanner';
@@ -575,7 +577,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
                 <label htmlFor="chart-source">Source line</label>
                 <input id="chart-source" value={doc.source} placeholder="Where the numbers come from" onChange={(e) => dispatch({ type: 'set-source', source: e.target.value })} onBlur={seal} />
               </div>
-              <DataTable doc={doc} problems={rowProblems} dispatch={dispatch} seal={seal} onNotice={say} />
+              <DataTable doc={doc} problems={rowProblems} dispatch={dispatch} seal={seal} onNotice={say} colorNote={colorNote(outcome)} />
             </div>
           </details>
           <details className="section" open>
@@ -585,6 +587,22 @@ export function App({ host }: { host: HostApi }): ReactElement {
             </summary>
             <div className="section-body">
               <DrawingPanel doc={doc} dispatch={dispatch} seal={seal} chosenUnit={chosenUnit} defaultColors={palette} />
+            </div>
+          </details>
+          <details className="section" open>
+            <summary>
+              <span>Size &amp; order</span>
+            </summary>
+            <div className="section-body">
+              <SizeOrderPanel doc={doc} dispatch={dispatch} seal={seal} />
+            </div>
+          </details>
+          <details className="section" open>
+            <summary>
+              <span>Type &amp; labels</span>
+            </summary>
+            <div className="section-body">
+              <TypeLabelsPanel doc={doc} dispatch={dispatch} seal={seal} problems={current && outcome?.kind === 'invalid' ? outcome.problems : []} />
             </div>
           </details>
           <details className="section" open>
@@ -602,7 +620,7 @@ export function App({ host }: { host: HostApi }): ReactElement {
               <span className="summary-meta">{trimNumber(doc.page.width)} × {trimNumber(doc.page.height)} {doc.page.unit}</span>
             </summary>
             <div className="section-body">
-              <PagePanel doc={doc} dispatch={dispatch} />
+              <PagePanel doc={doc} dispatch={dispatch} seal={seal} />
             </div>
           </details>
         </aside>
@@ -629,16 +647,40 @@ export function App({ host }: { host: HostApi }): ReactElement {
       <AuditWorkspace host={host} onNotice={say} hidden={workspace !== 'audit'} />
 
       <footer className="statusbar">
-        <span className={notice ? `notice ${notice.tone}` : 'notice'} role="status" aria-live="polite" data-testid="notice">
+        {/* One line however long the sentence: the whole of it on hover (title), on focus (shown above the bar)
+            and, for a refusal, in the honesty panel the button leads to. */}
+        <span
+          className={notice ? `notice ${notice.tone}` : 'notice'}
+          role="status"
+          aria-live="polite"
+          data-testid="notice"
+          title={working ?? notice?.text ?? undefined}
+          tabIndex={working ?? notice?.text ? 0 : undefined}
+        >
           {working ?? notice?.text ?? ''}
         </span>
-        <span className="spacer" />
+        {!working && notice?.tone === 'error' && notice.text === exportBlock && (
+          <button type="button" className="link-button status-why" data-testid="notice-why" onClick={() => {
+            const panel = document.getElementById('honesty-check');
+            panel?.scrollIntoView({ block: 'start' });
+            panel?.focus();
+          }}>
+            Why?
+          </button>
+        )}
         <span className="status-meta">
           {caps ? (caps.kind === 'browser' ? 'Browser: files download, PNG drawn by the browser' : 'Desktop') : ''}
         </span>
       </footer>
     </div>
   );
+}
+
+/** The layout's sentence about category colours (a refusal or a warning), for the data table's colour column. */
+function colorNote(outcome: ReturnType<typeof useChartRender>['outcome']): { message: string; refused: boolean } | null {
+  if (outcome?.kind === 'failed') return /colour/i.test(outcome.message) ? { message: outcome.message, refused: true } : null;
+  const warning = outcome?.kind === 'checked' ? outcome.honesty.warnings.find((w) => w.code === 'color-repeated') : undefined;
+  return warning ? { message: warning.message, refused: false } : null;
 }
 
 function BlankChartNote(): ReactElement {

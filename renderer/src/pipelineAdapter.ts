@@ -101,7 +101,10 @@ function isVerifyReport(value: unknown): value is VerifyReport {
 export function renderDocument(doc: unknown): RenderOutcome {
   try {
     const result = renderChart(doc);
-    return { kind: 'checked', svg: result.svg, honesty: honestyOf(result.report), unit: unitOf(result.scene), rules: ruleFindingsOf(result.spec, result.scene) };
+    const honesty = honestyOf(result.report);
+    // The layout's own warnings too (a glyph size that did not fit, two categories in one colour), not only the verifier's.
+    honesty.warnings = result.warnings.map((w) => ({ code: w.code, message: w.message }));
+    return { kind: 'checked', svg: result.svg, honesty, unit: unitOf(result.scene), rules: ruleFindingsOf(result.spec, result.scene) };
   } catch (e) {
     if (isTallyError(e) && e.code === 'gate-refused' && isVerifyReport(e.details)) {
       let svg: string | null = null;

@@ -1,9 +1,11 @@
-// The data table: label, value and an optional glyph per row. Cells keep whatever was typed; a
+// The data table: label, value and an optional glyph and colour per row. Cells keep whatever was typed; a
 // problem is shown under its cell and the chart waits until it is fixed.
 import { Fragment, useRef, useState, type ClipboardEvent, type ReactElement } from 'react';
 import type { Action } from '../editor/actions';
 import type { EditorDocument, RowField, RowProblem } from '../editor/editorDocument';
 import { looksTabular } from '../editor/parseTable';
+import { defaultPalette } from '../demoCharts';
+import { ColorSwatch } from './ColorSwatch';
 import { GlyphPicker, GlyphThumb } from './GlyphPicker';
 import { Icon } from './Icon';
 
@@ -13,9 +15,15 @@ interface DataTableProps {
   dispatch: (action: Action) => void;
   seal: () => void;
   onNotice: (text: string, tone?: 'info' | 'error') => void;
+  /** The layout's sentence about category colours (two the same, too many to tell apart), shown under the table. */
+  colorNote?: { message: string; refused: boolean } | null;
 }
 
-export function DataTable({ doc, problems, dispatch, seal, onNotice }: DataTableProps): ReactElement {
+const PALETTE = defaultPalette();
+
+export function DataTable({ doc, problems, dispatch, seal, onNotice, colorNote = null }: DataTableProps): ReactElement {
+  // "Automatic" is the colour the layout gives a row without its own: the chart's list (or the palette) by place.
+  const listed = doc.layout.colors && doc.layout.colors.length > 0 ? doc.layout.colors : PALETTE;
   const [pickerRow, setPickerRow] = useState<string | null>(null);
   const pickerAnchor = useRef<HTMLButtonElement | null>(null);
   const problemAt = (rowId: string, field: RowField) => problems.find((p) => p.rowId === rowId && p.field === field)?.message;
@@ -51,6 +59,10 @@ export function DataTable({ doc, problems, dispatch, seal, onNotice }: DataTable
             <th scope="col">Label</th>
             <th className="col-value" scope="col">Value</th>
             <th className="col-glyph" scope="col" title="Optional: a glyph for this row only">Glyph</th>
+            <th className="col-color" scope="col" title="Optional: a colour for this row only; a dashed swatch is automatic (the chart’s colours in order)">
+              <span className="color-head" aria-hidden="true" />
+              <span className="sr-only">Colour</span>
+            </th>
             <th className="col-actions" scope="col"><span className="sr-only">Row actions</span></th>
           </tr>
         </thead>
@@ -116,6 +128,23 @@ export function DataTable({ doc, problems, dispatch, seal, onNotice }: DataTable
                     />
                   )}
                 </td>
+                <td className="col-color">
+                  <div className="row-color">
+                    <ColorSwatch
+                      color={row.color ?? listed[index % listed.length]}
+                      automatic={row.color === undefined}
+                      label={`Colour of row ${index + 1}: ${row.color === undefined ? `automatic (${listed[index % listed.length]})` : row.color}`}
+                      onPick={(color) => dispatch({ type: 'set-row-color', rowId: row.id, color, typing: true })}
+                      onDone={seal}
+                      testId={`row-color-${index + 1}`}
+                    />
+                    {row.color !== undefined && (
+                      <button type="button" className="icon-button color-reset" aria-label={`Colour of row ${index + 1} back to automatic`} title="Back to automatic" onClick={() => dispatch({ type: 'set-row-color', rowId: row.id, color: null })}>
+                        <Icon name="cross" size={10} />
+                      </button>
+                    )}
+                  </div>
+                </td>
                 <td className="col-actions">
                   <div className="row-actions">
                     <button type="button" className="icon-button" aria-label={`Move row ${index + 1} up`} title="Move up" disabled={index === 0} onClick={() => dispatch({ type: 'move-row', rowId: row.id, by: -1 })}>
@@ -133,7 +162,7 @@ export function DataTable({ doc, problems, dispatch, seal, onNotice }: DataTable
               {rowProblem && (
                 <tr className="problem-row">
                   <td />
-                  <td colSpan={4}>
+                  <td colSpan={5}>
                     <p className="cell-problem" role="alert" data-testid={`problem-${row.id}`}>
                       {rowProblem}
                     </p>
@@ -145,6 +174,11 @@ export function DataTable({ doc, problems, dispatch, seal, onNotice }: DataTable
           })}
         </tbody>
       </table>
+      {colorNote && (
+        <p className={colorNote.refused ? 'field-problem color-note' : 'field-problem color-note warn'} role={colorNote.refused ? 'alert' : 'status'} data-testid="color-note">
+          {colorNote.message}
+        </p>
+      )}
       <div className="table-tools">
         <button type="button" className="button subtle" onClick={() => dispatch({ type: 'add-row' })}>
           <Icon name="plus" size={14} /> Add row

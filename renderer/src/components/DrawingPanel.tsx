@@ -1,9 +1,11 @@
 // How the numbers become glyphs: mode, what one glyph stands for, the glyph, rounding and colours.
+// (Which labels show is in TypeLabelsPanel; size, gap and direction in SizeOrderPanel.)
 import { useRef, useState, type ReactElement } from 'react';
 import type { Arrangement, EncodingMode, FillTo, Rounding } from '../../../shared-core/document';
 import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
 import { formatNumber, nearGlyphNames } from '../editor/editorDocument';
+import { ColorSwatch } from './ColorSwatch';
 import { GlyphPicker, GlyphThumb } from './GlyphPicker';
 import { NumberField } from './NumberField';
 import { RadioGroup, type RadioOption } from './RadioGroup';
@@ -154,37 +156,22 @@ export function DrawingPanel({ doc, dispatch, seal, chosenUnit, defaultColors }:
         </div>
         <div className="swatches">
           {colors.map((c, i) => (
-            <label key={i} className="swatch" title={`Colour ${i + 1}: ${c}`} style={{ background: c }}>
-              <input
-                type="color"
-                value={c.length === 7 ? c : '#000000'}
-                aria-label={`Colour ${i + 1}`}
-                onChange={(e) => {
-                  const next = [...colors];
-                  next[i] = e.target.value;
-                  dispatch({ type: 'set-colors', colors: next });
-                }}
-              />
-            </label>
+            <ColorSwatch
+              key={i}
+              color={c}
+              label={`Colour ${i + 1}`}
+              onPick={(color) => {
+                const next = [...colors];
+                next[i] = color;
+                dispatch({ type: 'set-colors', colors: next, typing: true });
+              }}
+              onDone={seal}
+            />
           ))}
         </div>
         <p className="field-hint">Colours go to categories in order. Marks print opaque.</p>
       </div>
 
-      <div className="field">
-        <span className="field-label">Show</span>
-        <div className="checks">
-          <label className="check">
-            <input type="checkbox" checked={doc.layout.labels} onChange={(e) => dispatch({ type: 'set-show', what: 'labels', on: e.target.checked })} /> Labels
-          </label>
-          <label className="check">
-            <input type="checkbox" checked={doc.layout.valueLabels} onChange={(e) => dispatch({ type: 'set-show', what: 'valueLabels', on: e.target.checked })} /> Values
-          </label>
-          <label className="check">
-            <input type="checkbox" checked={doc.layout.legend} onChange={(e) => dispatch({ type: 'set-show', what: 'legend', on: e.target.checked })} /> Key
-          </label>
-        </div>
-      </div>
     </div>
   );
 }

@@ -3,6 +3,7 @@ import type { ReactElement } from 'react';
 import { PAGE_UNIT_MM, type PageUnit } from '../../../shared-core/document';
 import type { Action } from '../editor/actions';
 import type { EditorDocument } from '../editor/editorDocument';
+import { ColorSwatch } from './ColorSwatch';
 import { Icon } from './Icon';
 import { NumberField } from './NumberField';
 
@@ -22,6 +23,8 @@ const UNIT_NAMES: Record<PageUnit, string> = { mm: 'mm', in: 'in', pt: 'pt', px:
 interface PagePanelProps {
   doc: EditorDocument;
   dispatch: (action: Action) => void;
+  /** Ends a colour drag's undo step. */
+  seal?: () => void;
 }
 
 function sheetName(widthMm: number, heightMm: number): string {
@@ -32,7 +35,7 @@ function sheetName(widthMm: number, heightMm: number): string {
   return 'custom';
 }
 
-export function PagePanel({ doc, dispatch }: PagePanelProps): ReactElement {
+export function PagePanel({ doc, dispatch, seal = () => undefined }: PagePanelProps): ReactElement {
   const { width, height, unit } = doc.page;
   const perUnit = PAGE_UNIT_MM[unit];
   const widthMm = width * perUnit;
@@ -119,13 +122,13 @@ export function PagePanel({ doc, dispatch }: PagePanelProps): ReactElement {
         </div>
         {background !== undefined && (
           <div className="field narrow-field">
-            <label htmlFor="page-background">Colour</label>
-            <input
-              id="page-background"
-              type="color"
-              value={background}
-              data-testid="page-background"
-              onChange={(e) => dispatch({ type: 'set-background', background: e.target.value })}
+            <span className="field-label">Colour</span>
+            <ColorSwatch
+              color={background}
+              label="Background colour"
+              testId="page-background"
+              onPick={(color) => dispatch({ type: 'set-background', background: color, typing: true })}
+              onDone={seal}
             />
           </div>
         )}

@@ -1,7 +1,29 @@
 // Every change the editor can make, as a named action, and the pure perform(document, action)
 // that returns the next document. Nothing else changes a document.
 
-import { PAGE_UNIT_MM, type OwnGlyph, type Arrangement, type EncodingMode, type FillTo, type MarginsMm, type PageUnit, type Rounding } from '../../../shared-core/document';
+import {
+  GROUP_EVERY_CHOICES,
+  LABEL_ALIGNS,
+  LABEL_POSITIONS,
+  PAGE_UNIT_MM,
+  SORT_ORDERS,
+  SOURCE_SIZE_PT_RANGE,
+  TEXT_FONTS,
+  TITLE_SIZE_PT_RANGE,
+  type Arrangement,
+  type Direction,
+  type EncodingMode,
+  type FillTo,
+  type GroupEvery,
+  type LabelAlign,
+  type LabelPosition,
+  type MarginsMm,
+  type OwnGlyph,
+  type PageUnit,
+  type Rounding,
+  type SortOrder,
+  type TextFont,
+} from '../../../shared-core/document';
 import type { EditorDocument, EditorRow } from './editorDocument';
 import { INTEGRITY_ACTION_NAMES, isIntegrityAction, performIntegrity, type IntegrityAction } from './integrityActions';
 import { parseTable } from './parseTable';
@@ -26,18 +48,40 @@ export type Action =
   | { type: 'set-arrangement'; arrangement: Arrangement }
   | { type: 'set-fill-to'; fillTo: FillTo }
   /** null: the default palette. */
-  | { type: 'set-colors'; colors: string[] | null }
+  | { type: 'set-colors'; colors: string[] | null; typing?: boolean }
   | { type: 'set-page-size'; width: number; height: number }
   | { type: 'set-page-unit'; unit: PageUnit }
   | { type: 'set-margins'; margins: MarginsMm }
   | { type: 'set-bleed'; bleedMm: number }
   /** null: no background (a transparent page). */
-  | { type: 'set-background'; background: string | null }
+  | { type: 'set-background'; background: string | null; typing?: boolean }
   | { type: 'set-show'; what: 'labels' | 'valueLabels' | 'legend'; on: boolean }
   /** A glyph of one's own kept in the document under `name` ("own:…"), and used as the chart's glyph. */
   | { type: 'add-own-glyph'; name: string; glyph: OwnGlyph }
   /** Removes an own glyph; rows and the chart fall back to the bundled square where they used it. */
   | { type: 'remove-own-glyph'; name: string }
+  // Layout and style controls. typing: sent while a field is typed in or a colour dragged in its
+  // picker, merged into one undo step until the control is left.
+  /** null: automatic (the palette colour of the row's place). */
+  | { type: 'set-row-color'; rowId: string; color: string | null; typing?: boolean }
+  /** null: automatic (the largest size that fits). */
+  | { type: 'set-glyph-size'; glyphSizeMm: number | null; typing?: boolean }
+  | { type: 'set-gap'; gapRatio: number; typing?: boolean }
+  | { type: 'set-columns'; columns: number | 'auto'; typing?: boolean }
+  | { type: 'set-direction'; direction: Direction }
+  /** 0: even spacing. */
+  | { type: 'set-group-every'; groupEvery: GroupEvery }
+  | { type: 'set-label-position'; labelPosition: LabelPosition }
+  | { type: 'set-label-align'; labelAlign: LabelAlign }
+  /** Kept as typed ("" clears it); the document check refuses what is too long. */
+  | { type: 'set-value-unit'; valueUnit: string }
+  | { type: 'set-sort'; sort: SortOrder }
+  /** null: the default size. */
+  | { type: 'set-title-size'; sizePt: number | null; typing?: boolean }
+  | { type: 'set-source-size'; sizePt: number | null; typing?: boolean }
+  | { type: 'set-font'; font: TextFont }
+  /** Kept as typed ("" is the default wording), so a wording without {amount} stays in its field with the check's sentence. */
+  | { type: 'set-key-wording'; keyWording: string }
   /** Adjustments and findings set aside, from the integrity panel (integrityActions.ts). */
   | IntegrityAction;
 
@@ -70,8 +114,45 @@ export const ACTION_NAMES: Readonly<Record<ActionType, string>> = Object.freeze(
   'set-show': 'label setting',
   'add-own-glyph': 'glyph import',
   'remove-own-glyph': 'glyph removal',
+  'set-row-color': 'row colour change',
+  'set-glyph-size': 'glyph size change',
+  'set-gap': 'gap change',
+  'set-columns': 'glyphs per row change',
+  'set-direction': 'reading direction change',
+  'set-group-every': 'grouping change',
+  'set-label-position': 'label position change',
+  'set-label-align': 'label alignment change',
+  'set-value-unit': 'value unit change',
+  'set-sort': 'sort order change',
+  'set-title-size': 'title size change',
+  'set-source-size': 'source size change',
+  'set-font': 'font change',
+  'set-key-wording': 'key wording change',
   ...INTEGRITY_ACTION_NAMES,
 });
+
+type LayoutField = 'groupEvery' | 'labelPosition' | 'labelAlign' | 'valueUnit' | 'sort' | 'titleSizePt' | 'sourceSizePt' | 'font' | 'keyWording';
+
+/** The document with one optional layout field set, or removed when `value` is undefined; the same document when nothing changes. */
+function withLayoutField<F extends LayoutField>(doc: EditorDocument, field: F, value: EditorDocument['layout'][F] | undefined): EditorDocument {
+  if (doc.layout[field] === value) return doc;
+  const layout: EditorDocument['layout'] = { ...doc.layout };
+  if (value === undefined) delete layout[field];
+  else layout[field] = value;
+  return { ...doc, layout };
+}
+
+function inRange(value: number | null, range: { min: number; max: number }): boolean {
+  return value === null || (Number.isFinite(value) && value >= range.min && value <= range.max);
+}
+
+/** The layout's own bound on the gap (chartSchema: at most 10 glyph sizes). */
+const MAX_GAP_RATIO = 10;
+
+/** An opaque #rrggbb colour in lower case, or null for anything else. */
+function opaqueHex(color: string): string | null {
+  return /^#[0-9a-f]{6}$/i.test(color) ? color.toLowerCase() : null;
+}
 
 const MAX_ROWS = 10_000;
 
@@ -245,6 +326,55 @@ export function perform(doc: EditorDocument, action: Action): EditorDocument {
     }
     case 'set-show':
       return doc.layout[action.what] === action.on ? doc : { ...doc, layout: { ...doc.layout, [action.what]: action.on } };
+    case 'set-row-color': {
+      const color = action.color === null ? null : opaqueHex(action.color);
+      if (action.color !== null && color === null) return doc;
+      return mapRow(doc, action.rowId, (r) => {
+        if ((r.color ?? null) === color) return r;
+        const { color: _old, ...rest } = r;
+        return color === null ? rest : { ...rest, color };
+      });
+    }
+    case 'set-glyph-size': {
+      const size = action.glyphSizeMm;
+      if (size !== null && !(Number.isFinite(size) && size > 0)) return doc;
+      if ((doc.layout.glyphSizeMm ?? null) === size) return doc;
+      const { glyphSizeMm: _old, ...rest } = doc.layout;
+      return { ...doc, layout: size === null ? rest : { ...rest, glyphSizeMm: size } };
+    }
+    case 'set-gap':
+      if (!(Number.isFinite(action.gapRatio) && action.gapRatio >= 0 && action.gapRatio <= MAX_GAP_RATIO) || action.gapRatio === doc.layout.gapRatio) return doc;
+      return { ...doc, layout: { ...doc.layout, gapRatio: action.gapRatio } };
+    case 'set-columns': {
+      const c = action.columns;
+      if (c !== 'auto' && !(Number.isInteger(c) && c >= 1)) return doc;
+      return c === doc.layout.columns ? doc : { ...doc, layout: { ...doc.layout, columns: c } };
+    }
+    case 'set-direction':
+      return action.direction === doc.layout.direction ? doc : { ...doc, layout: { ...doc.layout, direction: action.direction } };
+    // Choices at their default are removed rather than written, so a document saves back as it was.
+    case 'set-group-every':
+      if (!GROUP_EVERY_CHOICES.includes(action.groupEvery)) return doc;
+      return withLayoutField(doc, 'groupEvery', action.groupEvery === 0 ? undefined : action.groupEvery);
+    case 'set-label-position':
+      if (!LABEL_POSITIONS.includes(action.labelPosition)) return doc;
+      return withLayoutField(doc, 'labelPosition', action.labelPosition === 'beside' ? undefined : action.labelPosition);
+    case 'set-label-align':
+      return LABEL_ALIGNS.includes(action.labelAlign) ? withLayoutField(doc, 'labelAlign', action.labelAlign) : doc;
+    case 'set-value-unit':
+      return withLayoutField(doc, 'valueUnit', action.valueUnit === '' ? undefined : action.valueUnit);
+    case 'set-sort':
+      if (!SORT_ORDERS.includes(action.sort)) return doc;
+      return withLayoutField(doc, 'sort', action.sort === 'given' ? undefined : action.sort);
+    case 'set-title-size':
+      return inRange(action.sizePt, TITLE_SIZE_PT_RANGE) ? withLayoutField(doc, 'titleSizePt', action.sizePt ?? undefined) : doc;
+    case 'set-source-size':
+      return inRange(action.sizePt, SOURCE_SIZE_PT_RANGE) ? withLayoutField(doc, 'sourceSizePt', action.sizePt ?? undefined) : doc;
+    case 'set-font':
+      if (!TEXT_FONTS.includes(action.font)) return doc;
+      return withLayoutField(doc, 'font', action.font === 'sans' ? undefined : action.font);
+    case 'set-key-wording':
+      return withLayoutField(doc, 'keyWording', action.keyWording === '' ? undefined : action.keyWording);
   }
 }
 
@@ -263,6 +393,19 @@ export function coalesceKey(action: Action): string | null {
       return action.type;
     case 'set-unit':
       return action.typing ? 'set-unit:typing' : null;
+    case 'set-row-color':
+      return action.typing ? `${action.type}:${action.rowId}:typing` : null;
+    case 'set-colors':
+    case 'set-background':
+    case 'set-glyph-size':
+    case 'set-gap':
+    case 'set-columns':
+    case 'set-title-size':
+    case 'set-source-size':
+      return action.typing ? `${action.type}:typing` : null;
+    case 'set-value-unit':
+    case 'set-key-wording':
+      return action.type;
     default:
       return null;
   }

@@ -242,6 +242,17 @@ export function toChartDocument(ed: EditorDocument): ConversionResult {
   if (ed.layout.glyphSizeMm !== undefined) layout.glyphSizeMm = ed.layout.glyphSizeMm;
   if (ed.layout.colors !== undefined && ed.layout.colors.length > 0) layout.colors = [...ed.layout.colors];
   if (ed.layout.background !== undefined) layout.background = ed.layout.background;
+  // Style options are written only when set, so a document opened and saved without touching them is unchanged.
+  const { groupEvery, labelPosition, labelAlign, valueUnit, sort, titleSizePt, sourceSizePt, font, keyWording } = ed.layout;
+  if (groupEvery !== undefined) layout.groupEvery = groupEvery;
+  if (labelPosition !== undefined) layout.labelPosition = labelPosition;
+  if (labelAlign !== undefined) layout.labelAlign = labelAlign;
+  if (valueUnit !== undefined && valueUnit !== '') layout.valueUnit = valueUnit;
+  if (sort !== undefined) layout.sort = sort;
+  if (titleSizePt !== undefined) layout.titleSizePt = titleSizePt;
+  if (sourceSizePt !== undefined) layout.sourceSizePt = sourceSizePt;
+  if (font !== undefined) layout.font = font;
+  if (keyWording !== undefined && keyWording !== '') layout.keyWording = keyWording;
 
   const document: ChartDocument = {
     format: CHART_FORMAT,
