@@ -1,7 +1,7 @@
 // Anything painted after a mark that lands on its ink hides part of it, so the reader sees less than is
 // measured (common practice, no source).
 import type { ChartSvgMark } from '../../svg/readChartSvg';
-import { intersectRegions, regionArea, type Box } from '../../geometry/region';
+import { intersectRegions, regionArea, unionRegions, type Box, type Region } from '../../geometry/region';
 import type { IntegrityFinding } from '../check';
 import type { FileCheck, MarkInk, Owner } from '../measureFile';
 import { blockingFinding, num } from './fileFinding';
@@ -18,6 +18,20 @@ const OVER_NAMES: Record<Owner['kind'], string> = {
 
 function boxesMeet(a: Box, b: Box): boolean {
   return a.x < b.x + b.width && b.x < a.x + a.width && a.y < b.y + b.height && b.y < a.y + a.height;
+}
+
+/**
+ * The part of a mark's ink that can meet `over`: the union of the pieces whose boxes meet its box. Pieces
+ * whose boxes do not meet it share no area with it, so `over` meets this exactly where it meets the whole
+ * mark, without building the whole mark's polygons (thousands of glyphs). Marks with loose shapes outside any
+ * piece (not written by Tallyglyph) use their whole ink.
+ */
+function inkNear(mi: MarkInk, over: Box): Region {
+  if (mi.other > 0) return mi.ink.region;
+  const near: Region[] = [];
+  for (const p of mi.pieces) if (p.ink.boxMm && boxesMeet(over, p.ink.boxMm)) near.push(p.ink.region);
+  if (near.length <= 1) return near[0] ?? [];
+  return unionRegions(near);
 }
 
 export const paintedOver: FileCheck = {
@@ -46,7 +60,7 @@ export const paintedOver: FileCheck = {
       if (!over.boxMm) continue;
       for (const mi of seen) {
         if (reported.has(mi.mark) || !mi.ink.boxMm || !boxesMeet(over.boxMm, mi.ink.boxMm)) continue;
-        const hidden = regionArea(intersectRegions(over.region, mi.ink.region)) * s * s;
+        const hidden = regionArea(intersectRegions(over.region, inkNear(mi, over.boxMm))) * s * s;
         if (hidden > 1e-6 * Math.max(mi.ink.areaMm2, 1e-9)) {
           reported.add(mi.mark);
           const what = OVER_NAMES[owner?.kind ?? 'other'];

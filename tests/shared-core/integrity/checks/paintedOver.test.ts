@@ -26,4 +26,24 @@ describe('check painted-over', () => {
   it('passes artwork that touches nothing', () => {
     expect(runCheck(paintedOver, chart(`<path d="${ringPath(rect(100, 10, 4, 30))}" fill="#333333"/>`))).toEqual([]);
   });
+
+  // The check intersects only the pieces whose boxes meet the covering shape, unioned first: this must equal
+  // the covered part of the whole mark's ink, so a piece overlapping another is counted once (closed form).
+  it('counts the ink hidden under a strip across several pieces once, overlapping pieces included', () => {
+    const pieces = [];
+    for (let i = 0; i < 3; i++) for (let j = 0; j < 3; j++) pieces.push({ ring: rect(20 + 10 * i, 20 + 10 * j, 8, 8), part: 'full' as const });
+    // A small piece lying on the first square: the union's area is unchanged, a sum of per-piece areas would not be.
+    pieces.push({ ring: rect(22, 22, 4, 4), part: 'partial' as const });
+    const svg = chartSvg({
+      reading: 'count',
+      mode: 'repeat',
+      unit: 1,
+      marks: [{ id: 'mark-1', label: 'A', value: 9, pieces }],
+      // x 24..28 over the first column (x 20..28) of three 8 mm rows: 3 x 4 x 8 = 96 mm²; the small piece adds 0.
+      extra: `<path d="${ringPath(rect(24, 10, 4, 50))}" fill="#333333"/>`,
+    });
+    const findings = runCheck(paintedOver, svg);
+    expect(findings).toHaveLength(1);
+    expect(findings[0].message).toMatch(/covers 96 mm² of its ink \(artwork\)/);
+  });
 });
