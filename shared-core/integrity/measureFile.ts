@@ -14,7 +14,7 @@ import type { IntegrityCheck } from './check';
 import { DISTORTION_LIMITS, gate, type GateMode, type GateResult, type GateRounding } from './gate';
 import { lieFactors, type LieFactorReport } from './lieFactor';
 import { PREFLIGHT_DEFAULTS, validatePreflightInput, type PartialGlyph, type PreflightInput, type PreflightOptions } from './preflight';
-import { createShapeInkCache } from './shapeInk';
+import { createShapeInkCache, type ShapeInk } from './shapeInk';
 
 export interface VerifyOptions {
   /** Distortion limits; default Tufte's 0.95 and 1.05. */
@@ -250,18 +250,7 @@ export function measureFile(svgText: string, opts: VerifyOptions = {}): Measured
   const shapeInk = createShapeInkCache(budget);
   const inkOf = (shapes: PaintedShape[], tolerance = tolUnits): Ink => {
     if (shapes.length === 0) return { region: [], areaMm2: 0, perimeterMm: 0, boxMm: null };
-    if (shapes.length === 1) {
-      const one = shapeInk(shapes[0], tolerance);
-      const b = one.boxUnits;
-      return {
-        get region() {
-          return one.region();
-        },
-        areaMm2: one.areaUnits2 * s * s,
-        perimeterMm: one.perimeterUnits * s,
-        boxMm: b ? { x: b.x * s, y: b.y * s, width: b.width * s, height: b.height * s } : null,
-      };
-    }
+    if (shapes.length === 1) return new SingleShapeInk(shapeInk(shapes[0], tolerance), s);
     const region = inkOfShapes(shapes, tolerance, budget);
     return inkOfRegion(region);
   };
@@ -434,6 +423,27 @@ export function measureFile(svgText: string, opts: VerifyOptions = {}): Measured
   };
 }
 
+/** The ink of one shape in millimetres; its polygons are built only when a check asks for them. */
+class SingleShapeInk implements Ink {
+  readonly areaMm2: number;
+  readonly perimeterMm: number;
+  readonly boxMm: Box | null;
+
+  constructor(
+    private readonly one: ShapeInk,
+    s: number,
+  ) {
+    const b = one.boxUnits;
+    this.areaMm2 = one.areaUnits2 * s * s;
+    this.perimeterMm = one.perimeterUnits * s;
+    this.boxMm = b ? { x: b.x * s, y: b.y * s, width: b.width * s, height: b.height * s } : null;
+  }
+
+  get region(): Region {
+    return this.one.region();
+  }
+}
+
 function paintsOf(shapes: PaintedShape[], owners: Map<PaintedShape, Owner>, paper: string): Map<ChartSvgMark, MarkPaints> {
   const paints = new Map<ChartSvgMark, MarkPaints>();
   for (const shape of shapes) {
@@ -467,18 +477,20 @@ function unionInks(inks: Ink[], inkOfRegion: (region: Region) => Ink): Ink {
     while (parent[i] !== i) i = parent[i] = parent[parent[i]];
     return i;
   };
-  const bins = new Map<string, number[]>();
+  // Cells by column, then row: number keys (no key string per cell and box on a 100,000-glyph poster).
+  const bins = new Map<number, Map<number, number[]>>();
   boxes.forEach((a, i) => {
     const x0 = Math.floor(a.x / cell);
     const x1 = Math.floor((a.x + a.width) / cell);
     const y0 = Math.floor(a.y / cell);
     const y1 = Math.floor((a.y + a.height) / cell);
     for (let cx = x0; cx <= x1; cx++) {
+      let column = bins.get(cx);
+      if (!column) bins.set(cx, (column = new Map()));
       for (let cy = y0; cy <= y1; cy++) {
-        const key = `${cx},${cy}`;
-        const bin = bins.get(key);
+        const bin = column.get(cy);
         if (!bin) {
-          bins.set(key, [i]);
+          column.set(cy, [i]);
           continue;
         }
         for (const j of bin) {

@@ -61,15 +61,32 @@ export function createShapeInkCache(budget: FlattenBudget): (shape: PaintedShape
       measured = { local, areaUnits2: regionArea(local), perimeterUnits: perimeter, box: boxOf(local) };
       byStyle.set(key, measured);
     }
-    const dx = shape.ctm[4];
-    const dy = shape.ctm[5];
-    const { local, box } = measured;
-    let moved: Region | null = null;
-    return {
-      areaUnits2: measured.areaUnits2,
-      perimeterUnits: measured.perimeterUnits,
-      boxUnits: local.length && measured.areaUnits2 > 0 ? { x: box.x + dx, y: box.y + dy, width: box.width, height: box.height } : null,
-      region: () => (moved ??= translateRegion(local, dx, dy)),
-    };
+    return new PlacedInk(measured, shape.ctm[4], shape.ctm[5]);
   };
+}
+
+/**
+ * One copy of a measured shape where it stands. A class, not an object literal with a closure per copy: a
+ * chart has one of these per glyph drawn (100,000 on a poster), and the polygons are built only on demand.
+ */
+class PlacedInk implements ShapeInk {
+  readonly areaUnits2: number;
+  readonly perimeterUnits: number;
+  readonly boxUnits: Box | null;
+  private moved: Region | null = null;
+
+  constructor(
+    private readonly measured: Measured,
+    private readonly dx: number,
+    private readonly dy: number,
+  ) {
+    const { local, box } = measured;
+    this.areaUnits2 = measured.areaUnits2;
+    this.perimeterUnits = measured.perimeterUnits;
+    this.boxUnits = local.length && measured.areaUnits2 > 0 ? { x: box.x + dx, y: box.y + dy, width: box.width, height: box.height } : null;
+  }
+
+  region(): Region {
+    return (this.moved ??= translateRegion(this.measured.local, this.dx, this.dy));
+  }
 }

@@ -67,8 +67,9 @@ export function parseXml(text: string, limits: Partial<XmlLimits> = {}): XmlElem
       failure = new TallyError('svg-limit', `The SVG nests elements deeper than ${lim.maxDepth} levels (depth limit).`);
       throw failure;
     }
-    const attrs: Record<string, string> = {};
-    for (const [k, v] of Object.entries(tag.attributes as Record<string, string>)) attrs[k] = String(v);
+    // Without namespaces saxes hands each tag a fresh null-prototype object of string values: kept as it is
+    // (no copy per element), and no attribute name (`__proto__`, `constructor`) can reach a prototype.
+    const attrs = tag.attributes as Record<string, string>;
     const qname = tag.name;
     const colon = qname.indexOf(':');
     const el: XmlElement = { name: colon >= 0 ? qname.slice(colon + 1) : qname, qname, attrs, children: [], text: '' };
