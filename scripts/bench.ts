@@ -51,7 +51,10 @@ export interface BenchOptions {
   runs?: number;
   outDir?: string | null;
   log?: (line: string) => void;
-  /** Run only these cases: render, ink, png, app, audit (default all). */
+  /**
+   * Run only these cases: render, ink, png, app, audit (default all); `verify` times verification alone on the
+   * repeat charts (1k / 10k / 100k glyphs, written once, untimed), for work on the verifier.
+   */
   only?: readonly string[];
 }
 
@@ -270,6 +273,30 @@ export async function runBench(opts: BenchOptions = {}): Promise<BenchResult> {
   const big = sizes[sizes.length - 1];
   const mid = sizes[sizes.length - 2];
   if (sizes.length) add({ case: 'growth', figure: `time ${big} / time ${mid} glyphs`, value: (totals.get(big) as number) / (totals.get(mid) as number), unit: 'x', note: `${big / mid}x the glyphs; goal at most ${(big / mid) * 1.1}` });
+
+  // Verification alone (--only verify): each repeat chart laid out and written once, then verifySvg timed.
+  const verifySizes = want('verify') && !want('render') ? (smoke ? [50, 200] : [1_000, 10_000, 100_000]) : [];
+  const verifyTotals = new Map<number, number>();
+  for (const n of verifySizes) {
+    const page = n >= 100_000 ? { width: 1200, height: 900 } : { width: 420, height: 297 };
+    const spec = parseChart(repeatChartDoc(n, page));
+    const scene = withGlyphBudget(1e6, () => layoutChart(spec));
+    const svg = writeSvg(scene, { useReferences: spec.useReferences, outlineText: spec.outlineText });
+    let pass = true;
+    let reason = '';
+    const verifyRuns = n >= 100_000 ? Math.min(runs, 3) : runs;
+    const fig = await timed(verifyRuns, () => {
+      const report = verifySvg(svg, { rounding: spec.encoding.rounding });
+      pass &&= report.pass;
+      reason ||= report.reason ?? '';
+    });
+    verifyTotals.set(n, fig.medianMs);
+    add({ case: `repeat ${n} glyphs`, figure: '  stage verify', value: fig.medianMs, unit: 'ms', min: fig.minMs, max: fig.maxMs, note: `${(svg.length / 1e6).toFixed(2)} MB SVG, ${pass ? 'verified' : `refused: ${reason.slice(0, 100)}`}` });
+  }
+  if (verifySizes.length > 1) {
+    const [vMid, vBig] = verifySizes.slice(-2);
+    add({ case: 'growth', figure: `verify time ${vBig} / time ${vMid} glyphs`, value: (verifyTotals.get(vBig) as number) / (verifyTotals.get(vMid) as number), unit: 'x', note: `${vBig / vMid}x the glyphs; goal at most ${(vBig / vMid) * 1.1}` });
+  }
 
   // 3: exact ink area of bundled glyphs against a 2048 x 2048 raster count.
   const glyphs = !want('ink') ? [] : smoke ? listGlyphs().slice(0, 4) : listGlyphs();

@@ -49,4 +49,19 @@ describe('npm run bench --smoke', () => {
     expect(back.rows.length).toBe(result.rows.length);
     expect(fs.readFileSync(path.join(out, 'latest-smoke.md'), 'utf8')).toMatch(/\| repeat 200 glyphs \| ours/);
   });
+
+  it('times verification alone with --only verify: a stage row per chart size and the growth between them', { timeout: 300_000 }, async () => {
+    const result = await runBench({ smoke: true, only: ['verify'], outDir: out, log: () => {} });
+    expect(result.mode).toBe('smoke');
+    const stages = result.rows.filter((r) => /stage verify/.test(r.figure));
+    expect(stages.map((r) => r.case)).toEqual(['repeat 50 glyphs', 'repeat 200 glyphs']);
+    for (const row of stages) {
+      expect(Number.isFinite(row.value as number) && (row.value as number) > 0).toBe(true);
+      expect(row.note).toMatch(/verified/);
+    }
+    const growth = result.rows.find((r) => r.case === 'growth');
+    expect(growth?.value as number).toBeCloseTo((stages[1].value as number) / (stages[0].value as number), 9);
+    // Nothing else ran: no full render, no Vega, no other case.
+    expect(result.rows.every((r) => r.case === 'growth' || /stage verify/.test(r.figure))).toBe(true);
+  });
 });
