@@ -167,15 +167,18 @@ export function parseViewBox(v: string | undefined): Box | null {
   return { x: n[0], y: n[1], width: n[2], height: n[3] };
 }
 
-/** Presentation attributes overlaid with the `style` attribute (which wins, per CSS cascade). */
-export function readAttributes(el: XmlElement): Record<string, string> {
-  const out: Record<string, string> = { ...el.attrs };
+/**
+ * Presentation attributes overlaid with the `style` attribute (which wins, per CSS cascade). Read-only: without
+ * a `style` attribute this is the element's own attributes, not a copy (one copy per element was a large part
+ * of reading a 100,000-glyph chart).
+ */
+export function readAttributes(el: XmlElement): Readonly<Record<string, string>> {
   const st = el.attrs.style;
-  if (st) {
-    for (const decl of st.split(';')) {
-      const i = decl.indexOf(':');
-      if (i > 0) out[decl.slice(0, i).trim().toLowerCase()] = decl.slice(i + 1).replace(/!important/i, '').trim();
-    }
+  if (!st) return el.attrs;
+  const out: Record<string, string> = { ...el.attrs };
+  for (const decl of st.split(';')) {
+    const i = decl.indexOf(':');
+    if (i > 0) out[decl.slice(0, i).trim().toLowerCase()] = decl.slice(i + 1).replace(/!important/i, '').trim();
   }
   return out;
 }
@@ -197,9 +200,13 @@ function num(v: string | undefined, dflt: number, what: string): number {
   return n;
 }
 
-function inherit(p: Style, a: Record<string, string>, warn: (c: string, m: string) => void): Style {
+/** Whether a presentation attribute sets a value (not absent, empty or `inherit`). */
+function keep(v: string | undefined): v is string {
+  return v !== undefined && v !== 'inherit' && v !== '';
+}
+
+function inherit(p: Style, a: Readonly<Record<string, string>>, warn: (c: string, m: string) => void): Style {
   const s = { ...p };
-  const keep = (v: string | undefined) => v !== undefined && v !== 'inherit' && v !== '';
   if (keep(a.fill)) s.fill = a.fill.trim();
   if (keep(a['fill-rule'])) s.fillRule = a['fill-rule'].trim() === 'evenodd' ? 'evenodd' : 'nonzero';
   if (keep(a['fill-opacity'])) s.fillOpacity = num(a['fill-opacity'], 1, 'fill-opacity');
@@ -226,7 +233,7 @@ function inherit(p: Style, a: Record<string, string>, warn: (c: string, m: strin
 }
 
 /** Basic shapes as path data, per the equivalent paths in SVG 1.1 §9. */
-export function shapeToPathData(tag: string, a: Record<string, string>): string | null {
+export function shapeToPathData(tag: string, a: Readonly<Record<string, string>>): string | null {
   const n = (k: string, d = 0) => num(a[k], d, k);
   switch (tag) {
     case 'path':
