@@ -18,6 +18,10 @@ export function formatFixed(n: number, decimals: number): string {
   // A whole number up to 2^53 is written by toFixed as its digits then ".000…", which trims to exactly what
   // String gives (larger ones differ: String writes the shortest digits that read back, toFixed the exact value).
   if (Number.isSafeInteger(n)) return n === 0 ? '0' : String(n);
+  if (decimals <= 6) {
+    const quick = formatByScaling(n, decimals);
+    if (quick !== null) return quick;
+  }
   const s = n.toFixed(decimals);
   if (decimals === 0) return s === '-0' ? '0' : s;
   // Below 1e21 toFixed with decimals always writes a point; drop the zeros after it, then the point itself.
@@ -27,4 +31,36 @@ export function formatFixed(n: number, decimals: number): string {
   if (end === s.length) return s;
   // Only a value that rounds to zero trims to "-0".
   return end === 2 && s.charCodeAt(0) === 45 /* - */ && s.charCodeAt(1) === 48 ? '0' : s.slice(0, end);
+}
+
+const POWERS_OF_TEN = [1, 10, 100, 1e3, 1e4, 1e5, 1e6];
+
+/**
+ * toFixed rounds the exact value of |n| times 10^decimals to the nearest integer, halves up (ECMA-262,
+ * Number.prototype.toFixed). Multiplying in doubles is off by at most half a unit in the last place, so
+ * wherever the product is clearly away from a half (by more than 1e-15 of itself, several such units) the
+ * rounded product is that same integer and the digits follow from integer arithmetic, exact below 2^53.
+ * Null near a half and for large values: the caller then asks toFixed.
+ */
+function formatByScaling(n: number, decimals: number): string | null {
+  const negative = n < 0;
+  const scale = POWERS_OF_TEN[decimals];
+  const scaled = (negative ? -n : n) * scale;
+  if (!(scaled < 1e15)) return null;
+  const whole = Math.floor(scaled);
+  const above = scaled - whole; // exact: below 2^52 the fraction of a double is a double
+  if (Math.abs(above - 0.5) <= scaled * 1e-15) return null;
+  const rounded = above > 0.5 ? whole + 1 : whole;
+  if (rounded === 0) return '0';
+  const sign = negative ? '-' : '';
+  if (decimals === 0) return sign + String(rounded);
+  let fraction = rounded % scale;
+  const integer = (rounded - fraction) / scale; // an exact multiple divided: exact
+  if (fraction === 0) return sign + String(integer);
+  let digits = decimals;
+  while (fraction % 10 === 0) {
+    fraction /= 10;
+    digits -= 1;
+  }
+  return sign + String(integer) + '.' + String(fraction).padStart(digits, '0');
 }
