@@ -207,8 +207,10 @@ function writeMark(mark: SceneMark, defined: Set<string>, num: (n: number, what?
       continue;
     }
     const d = regionToPathData(piece.region, decimals);
-    // Written out rather than through attrs: once per piece, the same bytes without a list per piece.
-    if (d) lines.push(`<path data-part="${escapeXmlAttr(piece.part)}"${slot === undefined ? '' : ` data-slot="${escapeXmlAttr(slot)}"`} fill="${escapeXmlAttr(fill)}" d="${escapeXmlAttr(d)}"/>`);
+    // Written out rather than through attrs: once per piece, the same bytes without a list per piece. Path
+    // data is digits, signs, points, spaces and M/L/Z (toFixed's "e+", "NaN" and "Infinity" at worst), none of
+    // which XML escapes, so the longest value of the file is not scanned again.
+    if (d) lines.push(`<path data-part="${escapeXmlAttr(piece.part)}"${slot === undefined ? '' : ` data-slot="${escapeXmlAttr(slot)}"`} fill="${escapeXmlAttr(fill)}" d="${d}"/>`);
   }
   lines.push('</g>');
   return lines;
