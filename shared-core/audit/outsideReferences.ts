@@ -140,6 +140,26 @@ interface Edit {
 /** An attribute as written in a start tag: its name and the span from the blank before it to its closing quote. */
 const ATTRIBUTE = /\s+([^\s=/>]+)\s*=\s*(?:"[^"]*"|'[^']*')/g;
 
+/** The test the attribute loop below applies to a value before reading it as CSS. */
+const MAY_HOLD_CSS_REFERENCE = /url\(|@import|image(?:-set)?\(|\\/i;
+
+/**
+ * False only when the attribute loop in scan would find nothing on this tag: every attribute it reads is
+ * one of these, and each fails the loop's own tests (the CSS one taken before cleaning, so a maybe counts
+ * as a yes). Lets the common tag (a path, a use of a fragment) skip slicing its text and matching spans.
+ */
+function anyAttributeMayReachOutside(attrs: Record<string, string>, addressNames: Set<string>): boolean {
+  for (const qname in attrs) {
+    if (qname === 'xmlns' || qname.startsWith('xmlns:')) continue;
+    const value = attrs[qname];
+    const local = localName(qname);
+    if (local.startsWith('on') || qname === 'xml:base' || addressNames.has(qname)) return true;
+    if ((local === 'href' || local === 'src') && !isInsideTarget(value)) return true;
+    if (MAY_HOLD_CSS_REFERENCE.test(value)) return true;
+  }
+  return false;
+}
+
 function scan(text: string): { found: OutsideReference[]; edits: Edit[] } {
   const found: OutsideReference[] = [];
   const edits: Edit[] = [];
@@ -180,6 +200,11 @@ function scan(text: string): { found: OutsideReference[]; edits: Edit[] } {
       }
       return;
     }
+    if (entry.name === 'style' && !tag.isSelfClosing) {
+      entry.styleStart = startTagEnd;
+      entry.css = '';
+    }
+    if (!anyAttributeMayReachOutside(attrs, addressNames)) return;
     const startTag = text.slice(entry.start, startTagEnd);
     ATTRIBUTE.lastIndex = 0;
     for (let m = ATTRIBUTE.exec(startTag); m; m = ATTRIBUTE.exec(startTag)) {
@@ -198,17 +223,13 @@ function scan(text: string): { found: OutsideReference[]; edits: Edit[] } {
         edits.push({ ...span, text: '' });
         continue;
       }
-      if (!/url\(|@import|image(?:-set)?\(|\\/i.test(value)) continue;
+      if (!MAY_HOLD_CSS_REFERENCE.test(value)) continue;
       const cleaned = cleanCss(value);
       if (cleaned.urls + cleaned.imports === 0) continue;
       found.push(...cssFindings(value, tag.name));
       // A style attribute keeps its other declarations; any other attribute goes, falling back to its default.
       const keep = local === 'style' && cleaned.css.trim() !== '';
       edits.push({ ...span, text: keep ? ` ${qname}="${escapeAttr(cleaned.css)}"` : '' });
-    }
-    if (entry.name === 'style' && !tag.isSelfClosing) {
-      entry.styleStart = startTagEnd;
-      entry.css = '';
     }
   });
   const addText = (t: string) => {

@@ -3,6 +3,7 @@
 import { Clipper, ClipType, FillRule, type PathD, type PathsD } from 'clipper2-ts';
 import { TallyError } from '../errors';
 import type { Matrix } from './matrix';
+import { formatFixed } from './formatFixed';
 import { guardSweepWork } from './sweepWork';
 
 export type { PathD, PathsD };
@@ -181,18 +182,15 @@ export function rectRing(b: Box): PathD {
 
 /** Serialise a region as SVG path data with a fixed number of decimals; read it with fill-rule nonzero. */
 export function regionToPathData(region: Region, decimals = 3): string {
-  const f = (n: number) => {
-    const s = n.toFixed(decimals);
-    return s.includes('.') ? s.replace(/0+$/, '').replace(/\.$/, '') : s;
-  };
-  const fix = (n: number) => {
-    const s = f(n);
-    return s === '-0' ? '0' : s;
-  };
-  return region
-    .filter((r) => r.length >= 3)
-    .map((r) => 'M' + r.map((p) => `${fix(p.x)} ${fix(p.y)}`).join('L') + 'Z')
-    .join('');
+  // Plain loops and one concatenation per ring: this runs once per written piece, for every point.
+  let d = '';
+  for (const r of region) {
+    if (r.length < 3) continue;
+    let ring = 'M' + formatFixed(r[0].x, decimals) + ' ' + formatFixed(r[0].y, decimals);
+    for (let i = 1; i < r.length; i++) ring += 'L' + formatFixed(r[i].x, decimals) + ' ' + formatFixed(r[i].y, decimals);
+    d += ring + 'Z';
+  }
+  return d;
 }
 
 /**

@@ -3,6 +3,7 @@
 // marks as baked filled paths carrying their data, text as outlines. Geometry is built as numbers
 // first and only here turned into text, with a fixed number of decimals.
 import { TallyError } from '../errors';
+import { formatFixed } from '../geometry/formatFixed';
 import { regionToPathData, type Region } from '../geometry/region';
 import type { Scene, SceneLine, SceneMark, SceneText } from '../scene';
 import { FONT_FAMILY_NAMES, mmToPt, textOutline } from '../text';
@@ -38,15 +39,26 @@ const GROUPING_ATTLIST = '<!ATTLIST g data-group-every CDATA #IMPLIED data-group
 const HEX6 = /^#[0-9a-f]{6}$/i;
 
 /**
+ * Anything escapeXmlText would change: characters XML cannot carry (see NOT_XML_CHAR), &, <, > and U+FFFD.
+ * Written as the complement of what passes through unchanged, so a lone surrogate (not in any range) matches.
+ */
+const TEXT_NEEDS_ESCAPE = /[^\t\n\r\u0020-\u0025\u0027-\u003B\u003D\u003F-\uD7FF\uE000-\uFFFC\u{10000}-\u{10FFFF}]/u;
+/** Anything escapeXmlAttr would change: the above, plus the quote, tab and line breaks. */
+const ATTR_NEEDS_ESCAPE = /[^\u0020\u0021\u0023-\u0025\u0027-\u003B\u003D\u003F-\uD7FF\uE000-\uFFFC\u{10000}-\u{10FFFF}]/u;
+
+/**
  * Markup-safe text. U+FFFD is written as a character reference: the safe reader takes a literal one as
  * the mark of a failed UTF-8 decode and refuses the file.
  */
 export function escapeXmlText(s: string): string {
+  // Most text (numbers, ids, path data) holds nothing to change: one scan instead of five replacements.
+  if (!TEXT_NEEDS_ESCAPE.test(s)) return s;
   return toXmlChars(s).replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/\uFFFD/g, '&#xFFFD;');
 }
 
 /** Attribute values keep tabs and line breaks as character references (a parser would turn them into spaces). */
 export function escapeXmlAttr(s: string): string {
+  if (!ATTR_NEEDS_ESCAPE.test(s)) return s;
   return escapeXmlText(s).replace(/"/g, '&quot;').replace(/\t/g, '&#9;').replace(/\n/g, '&#10;').replace(/\r/g, '&#13;');
 }
 
@@ -60,15 +72,18 @@ function checkDecimals(decimals: number): number {
 function numberWriter(decimals: number): (n: number, what?: string) => string {
   return (n, what = 'a coordinate') => {
     if (!Number.isFinite(n)) throw new TallyError('number-invalid', `The scene has ${what} that is not a finite number (${String(n)}); nothing was written.`);
-    const s = n.toFixed(decimals);
-    const trimmed = s.includes('.') ? s.replace(/0+$/, '').replace(/\.$/, '') : s;
-    return trimmed === '-0' ? '0' : trimmed;
+    return formatFixed(n, decimals);
   };
 }
 
+/** The last colour checked: a mark's pieces all ask for the same one or two. */
+let lastColor = { given: '', written: '' };
+
 function color(c: string, what: string): string {
+  if (c === lastColor.given) return lastColor.written;
   if (!HEX6.test(c)) throw new TallyError('usage', `${what} has the colour "${c.slice(0, 20)}"; the writer takes opaque #rrggbb colours.`);
-  return c.toLowerCase();
+  lastColor = { given: c, written: c.toLowerCase() };
+  return lastColor.written;
 }
 
 /** Exact value as text: the shortest decimal that reads back as the same number. */
@@ -78,14 +93,23 @@ function exact(n: number, what: string): string {
 }
 
 function attrs(list: Array<[string, string | undefined]>): string {
-  return list
-    .filter((a): a is [string, string] => a[1] !== undefined)
-    .map(([k, v]) => ` ${k}="${escapeXmlAttr(v)}"`)
-    .join('');
+  let text = '';
+  for (const [k, v] of list) if (v !== undefined) text += ` ${k}="${escapeXmlAttr(v)}"`;
+  return text;
 }
 
+/** Ids of shape keys already seen: every <use> of a shape names the same one, worked out once. */
+const shapeIds = new Map<string, string>();
+
 function shapeId(key: string): string {
-  return `glyph-${key.replace(/[^A-Za-z0-9_-]+/g, '-')}`;
+  let id = shapeIds.get(key);
+  if (id === undefined) {
+    id = `glyph-${key.replace(/[^A-Za-z0-9_-]+/g, '-')}`;
+    // Keys are glyph names and cut fractions, a few per chart; the bound only keeps a long session's map small.
+    if (shapeIds.size >= 1024) shapeIds.clear();
+    shapeIds.set(key, id);
+  }
+  return id;
 }
 
 export function writeSvg(scene: Scene, opts: WriteSvgOptions = {}): string {
@@ -143,7 +167,8 @@ export function writeSvg(scene: Scene, opts: WriteSvgOptions = {}): string {
       ['data-group-gap-mm', grouping ? exact(grouping.gapMm, 'a group gap') : undefined],
     ])}>`,
   );
-  for (const mark of scene.marks) out.push(...writeMark(mark, defined, num, decimals));
+  // Pushed one by one: a mark of 100,000 pieces is too many arguments for a spread.
+  for (const mark of scene.marks) for (const line of writeMark(mark, defined, num, decimals)) out.push(line);
   out.push('</g>');
 
   for (const line of scene.lines) out.push(writeLine(line, num));
@@ -182,7 +207,10 @@ function writeMark(mark: SceneMark, defined: Set<string>, num: (n: number, what?
       continue;
     }
     const d = regionToPathData(piece.region, decimals);
-    if (d) lines.push(`<path${attrs([['data-part', piece.part], ['data-slot', slot], ['fill', fill], ['d', d]])}/>`);
+    // Written out rather than through attrs: once per piece, the same bytes without a list per piece. Path
+    // data is digits, signs, points, spaces and M/L/Z (toFixed's "e+", "NaN" and "Infinity" at worst), none of
+    // which XML escapes, so the longest value of the file is not scanned again.
+    if (d) lines.push(`<path data-part="${escapeXmlAttr(piece.part)}"${slot === undefined ? '' : ` data-slot="${escapeXmlAttr(slot)}"`} fill="${escapeXmlAttr(fill)}" d="${d}"/>`);
   }
   lines.push('</g>');
   return lines;
