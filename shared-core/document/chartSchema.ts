@@ -165,7 +165,7 @@ export interface ChartSpec extends ChartExtras {
   page: PageMm;
   /** Write text as outlines from the bundled font, so the file needs no installed fonts. */
   outlineText: boolean;
-  /** Reuse glyph geometry with <use>; false writes every glyph out in full. */
+  /** Reuse glyph geometry with <use> (the default); false writes every glyph out in full. */
   useReferences: boolean;
   /** Set only when the document asks to write a chart whose values are all zero (nothing to compare). */
   allowAllZero?: true;
@@ -402,7 +402,8 @@ export const chartDocumentSchema = z.strictObject({
   layout: layoutSchema.prefault({}),
   page: pageSchema,
   outlineText: flag().default(true),
-  useReferences: flag().default(false),
+  // References by default: every copy of a glyph is then an exact translate of one written shape (see svg/translatedPathData.ts).
+  useReferences: flag().default(true),
   /** A chart whose values are all zero compares nothing; it is written only when the document asks. */
   allowAllZero: flag().optional(),
   ...CHART_EXTRA_FIELDS,

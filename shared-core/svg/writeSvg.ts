@@ -8,6 +8,7 @@ import { regionToPathData, type Region } from '../geometry/region';
 import type { Scene, SceneLine, SceneMark, SceneText } from '../scene';
 import { FONT_FAMILY_NAMES, mmToPt, textOutline } from '../text';
 import { SUMMARY_ID } from './readChartSvg';
+import { placementSteps, shapeSteps, stepsToText, translatedPathData, type ShapeSteps } from './translatedPathData';
 import { toXmlChars } from './xmlChars';
 
 export interface WriteSvgOptions {
@@ -167,8 +168,20 @@ export function writeSvg(scene: Scene, opts: WriteSvgOptions = {}): string {
       ['data-group-gap-mm', grouping ? exact(grouping.gapMm, 'a group gap') : undefined],
     ])}>`,
   );
+  // Full pieces written out are the shape's written coordinates plus the written offset, so they measure exactly as <use> copies do.
+  const steps = new Map<string, ShapeSteps>();
+  const placeFull: FullPlacer = (ref) => {
+    const shape = scene.shapes?.[ref.shape];
+    if (!shape) return null;
+    num(ref.xMm);
+    num(ref.yMm);
+    let s = steps.get(ref.shape);
+    if (!s) steps.set(ref.shape, (s = shapeSteps(shape, decimals)));
+    const { dx, dy } = placementSteps(s, ref.xMm, ref.yMm);
+    return { x: stepsToText(dx, decimals), y: stepsToText(dy, decimals), d: () => translatedPathData(s, dx, dy) };
+  };
   // Pushed one by one: a mark of 100,000 pieces is too many arguments for a spread.
-  for (const mark of scene.marks) for (const line of writeMark(mark, defined, num, decimals)) out.push(line);
+  for (const mark of scene.marks) for (const line of writeMark(mark, defined, num, decimals, placeFull)) out.push(line);
   out.push('</g>');
 
   for (const line of scene.lines) out.push(writeLine(line, num));
@@ -196,17 +209,21 @@ export function writeSvg(scene: Scene, opts: WriteSvgOptions = {}): string {
   return out.join('\n') + '\n';
 }
 
-function writeMark(mark: SceneMark, defined: Set<string>, num: (n: number, what?: string) => string, decimals: number): string[] {
+/** Where a full piece of a shared shape is written: the <use> offset, or the moved outline's path data. */
+type FullPlacer = (ref: NonNullable<SceneMark['glyphs'][number]['ref']>) => { x: string; y: string; d: () => string } | null;
+
+function writeMark(mark: SceneMark, defined: Set<string>, num: (n: number, what?: string) => string, decimals: number, placeFull: FullPlacer): string[] {
   const lines: string[] = [];
   lines.push(`<g${attrs([['id', mark.id], ['class', 'tg-mark'], ['data-label', mark.label], ['data-value', exact(mark.value, `a value for "${mark.label}"`)], ['data-reading', mark.reading]])}>`);
   for (const piece of mark.glyphs) {
     const fill = piece.part === 'rest' ? color(mark.restColor ?? mark.color, `The rest of "${mark.label}"`) : color(mark.color, `"${mark.label}"`);
     const slot = piece.slot !== undefined ? String(piece.slot) : undefined;
-    if (piece.part === 'full' && piece.ref && defined.has(piece.ref.shape)) {
-      lines.push(`<use${attrs([['xlink:href', `#${shapeId(piece.ref.shape)}`], ['x', num(piece.ref.xMm)], ['y', num(piece.ref.yMm)], ['fill', fill], ['data-part', piece.part], ['data-slot', slot]])}/>`);
+    const placed = piece.part === 'full' && piece.ref ? placeFull(piece.ref) : null;
+    if (placed && piece.ref && defined.has(piece.ref.shape)) {
+      lines.push(`<use${attrs([['xlink:href', `#${shapeId(piece.ref.shape)}`], ['x', placed.x], ['y', placed.y], ['fill', fill], ['data-part', piece.part], ['data-slot', slot]])}/>`);
       continue;
     }
-    const d = regionToPathData(piece.region, decimals);
+    const d = placed ? placed.d() : regionToPathData(piece.region, decimals);
     // Written out rather than through attrs: once per piece, the same bytes without a list per piece. Path
     // data is digits, signs, points, spaces and M/L/Z (toFixed's "e+", "NaN" and "Infinity" at worst), none of
     // which XML escapes, so the longest value of the file is not scanned again.

@@ -71,13 +71,19 @@ interface Piece {
 
 /** Each mark's pieces with the ink box resvg finds for the piece alone (an independent renderer's geometry). */
 function marksOf(svg: string): { label: string; pieces: Piece[] }[] {
+  const boxOf = (d: string) => new Resvg(`<svg xmlns="http://www.w3.org/2000/svg" width="400" height="400" viewBox="0 0 400 400"><path d="${d}"/></svg>`).getBBox()!;
+  // Full glyphs placed with <use> (references are the default): the <defs> shape's box moved by x and y (SVG 1.1 'use').
+  const defs = new Map([...(/<defs>([\s\S]*?)<\/defs>/.exec(svg)?.[1] ?? '').matchAll(/<path id="([^"]+)" d="([^"]*)"\/>/g)].map((m) => [m[1], m[2]] as const));
   return [...svg.matchAll(/<g id="mark-\d+" class="tg-mark" data-label="([^"]*)"[^>]*>([\s\S]*?)<\/g>/g)].map((m) => ({
     label: m[1],
-    pieces: [...m[2].matchAll(/<path([^>]*)\/>/g)].map((p) => {
-      const attrs = p[1];
-      const d = /\bd="([^"]*)"/.exec(attrs)![1];
-      const box = new Resvg(`<svg xmlns="http://www.w3.org/2000/svg" width="400" height="400" viewBox="0 0 400 400"><path d="${d}"/></svg>`).getBBox()!;
-      return { part: /data-part="(\w+)"/.exec(attrs)![1], fill: /\bfill="([^"]*)"/.exec(attrs)![1], box: { x: box.x, y: box.y, width: box.width, height: box.height } };
+    pieces: [...m[2].matchAll(/<(path|use)([^>]*)\/>/g)].map((p) => {
+      const attrs = p[2];
+      const isUse = p[1] === 'use';
+      const d = isUse ? defs.get(/xlink:href="#([^"]+)"/.exec(attrs)![1])! : /\bd="([^"]*)"/.exec(attrs)![1];
+      const box = boxOf(d);
+      const dx = isUse ? Number(/\bx="([^"]*)"/.exec(attrs)![1]) : 0;
+      const dy = isUse ? Number(/\by="([^"]*)"/.exec(attrs)![1]) : 0;
+      return { part: /data-part="(\w+)"/.exec(attrs)![1], fill: /\bfill="([^"]*)"/.exec(attrs)![1], box: { x: box.x + dx, y: box.y + dy, width: box.width, height: box.height } };
     }),
   }));
 }

@@ -53,7 +53,8 @@ describe('parseChart accepts and defaults', () => {
       },
       page: { widthMm: 180, heightMm: 120, given: { width: 180, height: 120, unit: 'mm' } },
       outlineText: true,
-      useReferences: false,
+      // References are the default: copies written with <use> measure exactly as copies written out in full.
+      useReferences: true,
     } satisfies ChartSpec);
   });
 
@@ -85,7 +86,7 @@ describe('parseChart accepts and defaults', () => {
         d.data[0].color = '#ff000080';
         d.data[1].glyph = 'bus';
         d.outlineText = false;
-        d.useReferences = true;
+        d.useReferences = false;
       }),
     );
     expect(laid.layout).toEqual({
@@ -104,7 +105,8 @@ describe('parseChart accepts and defaults', () => {
       { label: 'Station A', value: 7.5, color: '#ff000080' },
       { label: 'Station B', value: 22.5, glyph: 'bus' },
     ]);
-    expect([laid.outlineText, laid.useReferences]).toEqual([false, true]);
+    // An explicit choice against each default is kept.
+    expect([laid.outlineText, laid.useReferences]).toEqual([false, false]);
   });
 
   it('round-trips through chartToDocument', () => {

@@ -1,5 +1,5 @@
 // Test helper: what a written chart SVG draws, read back from its text with the writer's documented structure
-// (docs/chart-svg.md): marks as <g class="tg-mark"> of <path data-part data-slot d>, texts as
+// (docs/chart-svg.md): marks as <g class="tg-mark"> of <path data-part data-slot d> or <use> of a <defs> path, texts as
 // <g class="tg-text" data-role data-size-pt> holding one outline path (or a <text> when outlines are off).
 // Boxes are taken from every coordinate pair of the path data: exact for the glyphs' flattened polygons,
 // and for text outlines including the quadratic control points (a box at most a hair larger than the ink).
@@ -65,15 +65,35 @@ export function unionBox(boxes: readonly BoxMm[]): BoxMm {
   return { x: minX, y: minY, width: maxX - minX, height: maxY - minY };
 }
 
-/** The marks in file order; the file must be written without <use> references (the default). */
+/** Boxes of the <defs> shapes by id, for pieces placed with <use>. */
+function defBoxes(svg: string): Map<string, BoxMm> {
+  const out = new Map<string, BoxMm>();
+  const defs = /<defs>([\s\S]*?)<\/defs>/.exec(svg)?.[1] ?? '';
+  for (const p of defs.matchAll(/<path[^>]*>/g)) {
+    const id = attr(p[0], 'id');
+    const d = attr(p[0], 'd');
+    const box = d ? pathBox(d) : null;
+    if (id && box) out.set(id, box);
+  }
+  return out;
+}
+
+/** The marks in file order, full glyphs written out or placed with <use> (SVG 1.1 'use': x and y add a translation). */
 export function writtenMarks(svg: string): WrittenMark[] {
   const out: WrittenMark[] = [];
+  const shapes = defBoxes(svg);
   const groups = svg.matchAll(/<g id="([^"]+)" class="tg-mark"([^>]*)>([\s\S]*?)<\/g>/g);
   for (const g of groups) {
     const pieces: WrittenPiece[] = [];
-    for (const p of g[3].matchAll(/<path[^>]*>/g)) {
-      const d = attr(p[0], 'd');
-      const box = d ? pathBox(d) : null;
+    for (const p of g[3].matchAll(/<(?:path|use)\b[^>]*>/g)) {
+      let box: BoxMm | null;
+      if (p[0].startsWith('<use')) {
+        const shape = shapes.get((attr(p[0], 'xlink:href') ?? '').replace(/^#/, ''));
+        box = shape ? { ...shape, x: shape.x + Number(attr(p[0], 'x') ?? 0), y: shape.y + Number(attr(p[0], 'y') ?? 0) } : null;
+      } else {
+        const d = attr(p[0], 'd');
+        box = d ? pathBox(d) : null;
+      }
       if (!box) continue;
       const slot = attr(p[0], 'data-slot');
       pieces.push({ part: attr(p[0], 'data-part') ?? '', slot: slot === null ? null : Number(slot), box });
