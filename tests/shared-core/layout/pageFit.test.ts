@@ -9,6 +9,8 @@ import { renderChart } from '../../../shared-core/pipeline/renderChart';
 import type { Scene } from '../../../shared-core/scene';
 import { caught } from '../../helpers/errors';
 import { drawnBoxes, pageFitProblems } from './pageFit';
+import { writtenBlock, writtenLegendKeys, writtenMarks } from './writtenSvg';
+import { REPEAT_MAX_GLYPH_MM } from '../../../shared-core/layout/repeatLayout';
 
 // Invented stations of an invented town; values chosen to give remainders and a wide range.
 const LABELS = ['Harbour Gate', 'Mill Lane', 'Old Market', 'Station Square', 'Quarry Hill', 'Ferry Steps', 'Tanners Row', 'Bell Yard', 'Copper Street', 'Lantern Walk', 'North Pier', 'Rope Walk', 'Saltmarsh', 'Weavers Close', 'Kiln Lane', 'Orchard End'];
@@ -243,4 +245,33 @@ describe('the scale key with a glyph per row', () => {
     const spec = parseChart({ ...doc, layout: { legend: false } });
     expect(pageFitProblems(layoutChart(spec), spec)).toEqual([]);
   });
+});
+
+describe('the shared grid uses the content box', () => {
+  // Common practice, no source: a chart block either grows until it meets the room between the margins, the title
+  // and the source line in one direction (here 90% of the room's width or height, the rest being the key list's and
+  // the legend's fixed gaps), or, where the glyph-size cap stops it first, stands centred in that room. Measured
+  // from the written SVG: the box of all ink but the title and source, against that room.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
+    for (const n of [3, 6, 9]) {
+      it(`${n} categories on ${pageName}`, { timeout: 60_000 }, () => {
+        const result = renderChart(chart(MODES['shared grid'], page, n));
+        expect(result.report.pass).toBe(true);
+        expect(pageFitProblems(result.scene, result.spec)).toEqual([]);
+        const { room, block } = writtenBlock(result.svg, result.spec.layout.margins, result.spec.page);
+        // The glyph size the layout caps: the larger side of a full unit glyph's ink box.
+        const glyphMm = Math.max(...writtenLegendKeys(result.svg).map((k) => Math.max(k.box.width, k.box.height)));
+        const fullMm = Math.max(...writtenMarks(result.svg).flatMap((m) => m.pieces.filter((p) => p.part === 'full').map((p) => Math.max(p.box.width, p.box.height))));
+        expect(Math.abs(glyphMm - fullMm)).toBeLessThan(0.01);
+        const usesWidth = block.width / room.width;
+        const usesHeight = block.height / room.height;
+        const capped = glyphMm >= REPEAT_MAX_GLYPH_MM - 0.05;
+        console.log(pageName, n, { usesWidth: usesWidth.toFixed(3), usesHeight: usesHeight.toFixed(3), glyphMm: glyphMm.toFixed(2), dx: (block.x + block.width / 2 - (room.x + room.width / 2)).toFixed(2), dy: (block.y + block.height / 2 - (room.y + room.height / 2)).toFixed(2) });
+        expect(capped || Math.max(usesWidth, usesHeight) >= 0.9, `uses ${(usesWidth * 100).toFixed(1)}% of the width, ${(usesHeight * 100).toFixed(1)}% of the height, glyphs ${glyphMm.toFixed(2)} mm`).toBe(true);
+        // Centred across and down within a millimetre (file coordinates carry three decimals).
+        expect(Math.abs(block.x + block.width / 2 - (room.x + room.width / 2))).toBeLessThan(1);
+        expect(Math.abs(block.y + block.height / 2 - (room.y + room.height / 2))).toBeLessThan(1);
+      });
+    }
+  }
 });
