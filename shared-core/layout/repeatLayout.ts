@@ -291,7 +291,8 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const shape = book.shape(glyph, p.inkMm2);
   // Use the page: the grid and its key list together are centred in the box, across and down.
   const blockWMm = gridWidthMm(p.columns, p) + (box.width - p.roomMm);
-  const originX = box.x + Math.max(0, box.width - blockWMm) / 2;
+  // On the file's 0.001 mm grid, like the box edges, so a glyph placed by reference and one written out rasterise alike.
+  const originX = Math.round((box.x + Math.max(0, box.width - blockWMm) / 2) * 1000) / 1000;
   const originY = box.y + Math.max(0, box.height - p.heightMm) / 2;
 
   const pieces: SceneGlyph[][] = rows.map(() => []);

@@ -54,7 +54,7 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
         'layout-no-room',
         `Too many different glyphs for this ${formatValue(spec.page.widthMm)} x ${formatValue(spec.page.heightMm)} mm page: the scale key needs a reference for each of the ${keys.length} glyphs drawn, ` +
           `and with them there is no room to draw the marks and references at a legible size (at least ${formatValue(MIN_GLYPH_MM)} mm), so nothing was drawn. ` +
-          'Draw every row with one glyph (clear the glyph cells in the table), use fewer different glyphs, or use a bigger page.',
+          'Use a bigger page, draw every row with one glyph (clear the glyph cells in the table), or use fewer different glyphs.',
         { what: 'The scale key\'s reference glyphs', glyphs: keys.length },
       );
     }
