@@ -2,6 +2,7 @@
 // scale charts nested reference glyphs whose ink follows the same k as the marks.
 import type { SceneLegendKey, SceneText } from '../scene';
 import { READABLE_MANTISSAS } from './chooseUnit';
+import { MIN_GLYPH_MM } from './fitSize';
 import type { ChartShape, GlyphBook } from './glyphBook';
 import { formatValue, lineMetrics, makeText, textWidthMm, TEXT_SIZE_MM } from './labels';
 import type { BoxMm } from './layoutContext';
@@ -115,31 +116,69 @@ const KEY_COLUMN_GAP_MM = 4;
 const KEY_ROW_GAP_MM = 2;
 /** Space after the caption before the first column. */
 const KEY_CAPTION_GAP_MM = 3;
+/** Space between reference glyphs that share one value text (they need no room for text of their own). */
+const KEY_SHARED_GAP_MM = 2;
+
+/** One key glyph's place: its centre is box.x + startMm + k · pitchMm + (pitchMm - gapMm) / 2 (one sum, one order). */
+interface KeyPlace {
+  column: number;
+  startMm: number;
+  k: number;
+  pitchMm: number;
+  gapMm: number;
+}
+
+/**
+ * One value text: centred under glyph k of a piece (one glyph per value), or centred under the piece's n glyphs
+ * (several glyphs sharing the value).
+ */
+interface KeyLabel {
+  text: string;
+  place: 'glyph' | 'span';
+  startMm: number;
+  k: number;
+  n: number;
+  pitchMm: number;
+  gapMm: number;
+}
+
+interface KeyRow {
+  /** Tallest glyph of the row. */
+  glyphHeightMm: number;
+  keys: KeyPlace[];
+  labels: KeyLabel[];
+}
 
 /**
  * The scale key's grid, computed from the glyphs' ink alone (no geometry yet), so the layout can ask how
  * tall the key is at any size. Reference amounts: a readable value near a quarter of the largest, and for the
  * first glyph one near a quarter of that (half its height) when it is still tall enough to read as the glyph;
- * each further glyph gets its first reference. Columns share one pitch (the widest cell plus a gap) and wrap
- * onto further rows when the width runs out, each row starting under the first column; when not even one
- * column fits beside the caption, the caption takes a line of its own above the grid. `fits` is false when
- * one column is wider than the box: the key cannot be drawn at this size.
+ * each further glyph gets its first reference. With one reference per value the columns share one pitch (the
+ * widest cell plus a gap), each value centred under its glyph. With several glyphs at one value (a glyph per
+ * row), those glyphs stand side by side on their own, narrower pitch and share one value text per key row, so
+ * the repeated text no longer sets the key's width. Rows wrap when the width runs out, each starting under the
+ * first column; when not even one column fits beside the caption, the caption takes a line of its own above
+ * the grid. `fits` is false when one column is wider than the box, or when several different glyphs are keyed
+ * and a reference would be smaller than MIN_GLYPH_MM: the key cannot be drawn at this size.
  */
 export interface ScaleKeyPlan {
   columns: KeyColumn[];
-  perRow: number;
-  pitchMm: number;
+  rows: KeyRow[];
   /** Caption on its own line above the grid (else beside the first row). */
   captionAbove: boolean;
-  /** Left edge of the grid, from the box's left edge. */
-  gridXMm: number;
-  /** Tallest glyph per key row. */
-  rowGlyphHeightsMm: number[];
   /** Height of the whole key, without the gap above it. */
   heightMm: number;
   /** Widest row, caption included, from the box's left edge. */
   widthMm: number;
   fits: boolean;
+  /** False when the key's glyphs are too small to read (several different glyphs at this size). */
+  legible: boolean;
+}
+
+
+function keyHeightMm(rows: readonly KeyRow[], captionAbove: boolean, m: ReturnType<typeof lineMetrics>): number {
+  const rowsMm = rows.reduce((a, r) => a + r.glyphHeightMm + KEY_TEXT_GAP_MM + m.boxHeightMm, 0) + (rows.length - 1) * KEY_ROW_GAP_MM;
+  return rowsMm + (captionAbove ? m.boxHeightMm + KEY_ROW_GAP_MM : 0);
 }
 
 export function planScaleKey(glyphs: readonly ResolvedGlyph[], inkMm2PerValue: number, maxValue: number, unitName: string, boxWidthMm: number): ScaleKeyPlan {
@@ -153,30 +192,98 @@ export function planScaleKey(glyphs: readonly ResolvedGlyph[], inkMm2PerValue: n
     const glyphWidthMm = glyph.bbox.width * mmPerUnit;
     return { glyph, value, colorIndex, glyphWidthMm, glyphHeightMm: glyph.bbox.height * mmPerUnit, valueText, cellWidthMm: Math.max(glyphWidthMm, textWidthMm(valueText, TEXT_SIZE_MM.legend)) };
   };
+  const secondOf: KeyColumn[] = [];
   if (first > 0 && inkMm2PerValue > 0) {
     glyphs.forEach((g, gi) => {
       columns.push(column(g, first, 0));
       if (gi === 0 && second > 0 && second < first) {
         const c = column(g, second, 1);
-        if (c.glyphHeightMm >= m.capHeightMm + m.descentMm) columns.push(c);
+        if (c.glyphHeightMm >= m.capHeightMm + m.descentMm) (glyphs.length > 1 ? secondOf : columns).push(c);
       }
     });
   }
-  if (columns.length === 0) return { columns, perRow: 0, pitchMm: 0, captionAbove: false, gridXMm: 0, rowGlyphHeightsMm: [], heightMm: 0, widthMm: 0, fits: true };
+  // Several glyphs: the glyphs of the first value together, the smaller reference after them.
+  columns.push(...secondOf);
+  if (columns.length === 0) return { columns, rows: [], captionAbove: false, heightMm: 0, widthMm: 0, fits: true, legible: true };
   const captionWMm = textWidthMm(SCALE_LEGEND_CAPTION, TEXT_SIZE_MM.legend);
-  const cellMm = Math.max(...columns.map((c) => c.cellWidthMm));
-  const pitchMm = cellMm + KEY_COLUMN_GAP_MM;
   const besideXMm = captionWMm + KEY_CAPTION_GAP_MM;
-  const captionAbove = besideXMm + cellMm > boxWidthMm + 1e-9;
-  const gridXMm = captionAbove ? 0 : besideXMm;
-  const fits = gridXMm + cellMm <= boxWidthMm + 1e-9 && captionWMm <= boxWidthMm + 1e-9;
-  const perRow = Math.max(1, Math.min(columns.length, Math.floor((boxWidthMm - gridXMm + KEY_COLUMN_GAP_MM + 1e-9) / pitchMm)));
-  const rowGlyphHeightsMm: number[] = [];
-  for (let i = 0; i < columns.length; i += perRow) rowGlyphHeightsMm.push(Math.max(...columns.slice(i, i + perRow).map((c) => c.glyphHeightMm)));
-  const rowsMm = rowGlyphHeightsMm.reduce((a, h) => a + h + KEY_TEXT_GAP_MM + m.boxHeightMm, 0) + (rowGlyphHeightsMm.length - 1) * KEY_ROW_GAP_MM;
-  const heightMm = rowsMm + (captionAbove ? m.boxHeightMm + KEY_ROW_GAP_MM : 0);
-  const widthMm = Math.max(captionWMm, gridXMm + perRow * pitchMm - KEY_COLUMN_GAP_MM);
-  return { columns, perRow, pitchMm, captionAbove, gridXMm, rowGlyphHeightsMm, heightMm, widthMm, fits };
+  const shared = glyphs.length > 1;
+  const rows: KeyRow[] = [];
+  let widthMm = captionWMm;
+  let fits: boolean;
+  let gridXMm: number;
+  if (!shared) {
+    // One glyph: every column its own cell on one pitch (the widest cell plus a gap), its value under it.
+    const cellMm = Math.max(...columns.map((c) => c.cellWidthMm));
+    const pitchMm = cellMm + KEY_COLUMN_GAP_MM;
+    const captionAbove = besideXMm + cellMm > boxWidthMm + 1e-9;
+    gridXMm = captionAbove ? 0 : besideXMm;
+    fits = gridXMm + cellMm <= boxWidthMm + 1e-9 && captionWMm <= boxWidthMm + 1e-9;
+    const perRow = Math.max(1, Math.min(columns.length, Math.floor((boxWidthMm - gridXMm + KEY_COLUMN_GAP_MM + 1e-9) / pitchMm)));
+    for (let i = 0; i < columns.length; i += perRow) {
+      const slice = columns.slice(i, i + perRow);
+      rows.push({
+        glyphHeightMm: Math.max(...slice.map((c) => c.glyphHeightMm)),
+        keys: slice.map((_, k) => ({ column: i + k, startMm: gridXMm, k, pitchMm, gapMm: KEY_COLUMN_GAP_MM })),
+        labels: slice.map((c, k) => ({ text: c.valueText, place: 'glyph', startMm: gridXMm, k, n: 1, pitchMm, gapMm: KEY_COLUMN_GAP_MM })),
+      });
+    }
+    widthMm = Math.max(captionWMm, gridXMm + perRow * pitchMm - KEY_COLUMN_GAP_MM);
+    const heightMm = keyHeightMm(rows, captionAbove, m);
+    return { columns, rows, captionAbove, heightMm, widthMm, fits, legible: true };
+  }
+  // Several glyphs: runs of columns showing one value, each on the pitch of its own glyphs with one text.
+  const runs: { from: number; to: number; pitchMm: number; textMm: number }[] = [];
+  for (let i = 0; i < columns.length; ) {
+    let j = i;
+    while (j < columns.length && columns[j].value === columns[i].value) j++;
+    const run = columns.slice(i, j);
+    runs.push({ from: i, to: j, pitchMm: Math.max(...run.map((c) => c.glyphWidthMm)) + KEY_SHARED_GAP_MM, textMm: textWidthMm(run[0].valueText, TEXT_SIZE_MM.legend) });
+    i = j;
+  }
+  // The narrowest piece a run can be cut into: one glyph, or its text if wider.
+  const needMm = Math.max(...runs.map((r) => Math.max(r.pitchMm - KEY_SHARED_GAP_MM, r.textMm)));
+  const captionAbove = besideXMm + needMm > boxWidthMm + 1e-9;
+  gridXMm = captionAbove ? 0 : besideXMm;
+  fits = gridXMm + needMm <= boxWidthMm + 1e-9 && captionWMm <= boxWidthMm + 1e-9;
+  const legible = columns.every((c) => c.colorIndex > 0 || Math.max(c.glyphWidthMm, c.glyphHeightMm) >= MIN_GLYPH_MM - 1e-9);
+  let row: KeyRow = { glyphHeightMm: 0, keys: [], labels: [] };
+  let xMm = gridXMm;
+  const newRow = () => {
+    rows.push(row);
+    row = { glyphHeightMm: 0, keys: [], labels: [] };
+    xMm = gridXMm;
+  };
+  const gapMm = KEY_SHARED_GAP_MM;
+  for (const run of runs) {
+    let next = run.from;
+    while (fits && next < run.to) {
+      const roomMm = boxWidthMm - xMm;
+      let n = Math.min(run.to - next, Math.floor((roomMm + gapMm + 1e-9) / run.pitchMm));
+      if (n >= 1 && Math.max(n * run.pitchMm - gapMm, run.textMm) > roomMm + 1e-9) n = 0;
+      if (n < 1) {
+        if (xMm === gridXMm) fits = false;
+        else newRow();
+        continue;
+      }
+      const spanMm = n * run.pitchMm - gapMm;
+      // The piece is as wide as its glyphs or its text; the glyphs stand centred in it, the text centred under them.
+      const pieceMm = Math.max(spanMm, run.textMm);
+      const glyphsXMm = xMm + (pieceMm - spanMm) / 2;
+      for (let k = 0; k < n; k++) {
+        row.keys.push({ column: next + k, startMm: glyphsXMm, k, pitchMm: run.pitchMm, gapMm });
+        row.glyphHeightMm = Math.max(row.glyphHeightMm, columns[next + k].glyphHeightMm);
+      }
+      row.labels.push({ text: columns[next].valueText, place: 'span', startMm: glyphsXMm, k: 0, n, pitchMm: run.pitchMm, gapMm });
+      widthMm = Math.max(widthMm, xMm + pieceMm);
+      xMm += pieceMm + KEY_COLUMN_GAP_MM;
+      next += n;
+      if (next < run.to) newRow();
+    }
+  }
+  if (row.keys.length > 0) rows.push(row);
+  const heightMm = keyHeightMm(rows, captionAbove, m);
+  return { columns, rows, captionAbove, heightMm, widthMm, fits, legible };
 }
 
 /**
@@ -187,7 +294,7 @@ export function scaleLegendHeightMm(glyphs: ResolvedGlyph | readonly ResolvedGly
   const list = Array.isArray(glyphs) ? (glyphs as readonly ResolvedGlyph[]) : [glyphs as ResolvedGlyph];
   const plan = planScaleKey(list, inkMm2PerValue, maxValue, unitName, boxWidthMm);
   if (plan.columns.length === 0) return 0;
-  return plan.fits ? LEGEND_GAP_MM + plan.heightMm : Infinity;
+  return plan.fits && plan.legible ? LEGEND_GAP_MM + plan.heightMm : Infinity;
 }
 
 /**
@@ -210,18 +317,23 @@ export function placeScaleLegend(book: GlyphBook, glyphs: ResolvedGlyph | readon
     rowTopMm += m.boxHeightMm + KEY_ROW_GAP_MM;
   }
   let bottomMm = rowTopMm;
-  plan.rowGlyphHeightsMm.forEach((rowGlyphMm, r) => {
-    const glyphBaseMm = rowTopMm + rowGlyphMm;
+  plan.rows.forEach((row, r) => {
+    const glyphBaseMm = rowTopMm + row.glyphHeightMm;
     const textBaselineMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.ascentMm;
     if (r === 0 && !plan.captionAbove) {
       texts.push(makeText({ role: 'legend', text: SCALE_LEGEND_CAPTION, xMm: box.x, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted }));
     }
-    plan.columns.slice(r * plan.perRow, (r + 1) * plan.perRow).forEach((c, k) => {
-      const centreXMm = box.x + plan.gridXMm + k * plan.pitchMm + (plan.pitchMm - KEY_COLUMN_GAP_MM) / 2;
+    for (const place of row.keys) {
+      const c = plan.columns[place.column];
+      const centreXMm = box.x + place.startMm + place.k * place.pitchMm + (place.pitchMm - place.gapMm) / 2;
       const shape = book.shape(c.glyph, inkMm2PerValue * c.value);
       legendKeys.push({ glyph: c.glyph.name, region: book.full(shape, centreXMm - shape.widthMm / 2, glyphBaseMm - shape.heightMm).region, color: INK_COLORS.referenceKeys[c.colorIndex + 1] ?? INK_COLORS.key, unitValue: c.value, unitName });
-      texts.push(makeText({ role: 'legend', text: c.valueText, xMm: centreXMm, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, anchor: 'middle', color: INK_COLORS.muted }));
-    });
+    }
+    for (const label of row.labels) {
+      const text = { role: 'legend' as const, text: label.text, yMm: textBaselineMm, sizeMm: TEXT_SIZE_MM.legend, color: INK_COLORS.muted };
+      if (label.place === 'glyph') texts.push(makeText({ ...text, xMm: box.x + label.startMm + label.k * label.pitchMm + (label.pitchMm - label.gapMm) / 2, anchor: 'middle' }));
+      else texts.push(makeText({ ...text, xMm: box.x + label.startMm + (label.n * label.pitchMm - label.gapMm) / 2, anchor: 'middle' }));
+    }
     bottomMm = glyphBaseMm + KEY_TEXT_GAP_MM + m.boxHeightMm;
     rowTopMm = bottomMm + KEY_ROW_GAP_MM;
   });

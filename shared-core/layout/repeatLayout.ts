@@ -250,14 +250,24 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const valueTexts = rows.map((r) => valueLabelText(r.value, layout));
   const listed = layout.labels || layout.valueLabels;
   const labelText = rows.map((r) => (layout.labels ? labelLines(r.label, box.width * LABEL_SHARE, TEXT_SIZE_MM.label, 700) : []));
-  const labelWMm = Math.max(0, ...labelText.map((l) => linesWidthMm(l, TEXT_SIZE_MM.label, 700)));
   const textBlockMm = labelText.map((l) => Math.max(linesHeightMm(l.length, lm), layout.valueLabels ? lm.boxHeightMm : 0));
-  const valueWMm = layout.valueLabels ? Math.max(...valueTexts.map((t) => textWidthMm(t, TEXT_SIZE_MM.valueLabel))) : 0;
+  // Each entry's text as drawn (the value follows its own label's first line), measured by its ink from the
+  // text's start: the list is as wide as its widest entry, so the block centred on the page is centred in ink.
+  const inkRightMm = (t: SceneText | undefined) => (t?.bboxMm && t.bboxMm.width > 0 ? t.bboxMm.x + t.bboxMm.width : 0);
+  const entryTextWMm = rows.map((row, i) => {
+    const lines = layout.labels ? makeLines({ role: 'label', text: row.label, xMm: 0, yMm: 0, sizeMm: TEXT_SIZE_MM.label, weight: 700, owner: row.id }, labelText[i], lm.lineHeightMm) : [];
+    const labelsMm = Math.max(0, ...lines.map(inkRightMm));
+    if (!layout.valueLabels) return labelsMm;
+    const firstLine = lines[0]?.bboxMm;
+    const valueXMm = firstLine && firstLine.width > 0 ? firstLine.x + firstLine.width + VALUE_PAD_MM : 0;
+    return Math.max(labelsMm, inkRightMm(makeText({ role: 'value-label', text: valueTexts[i], xMm: valueXMm, yMm: 0, sizeMm: TEXT_SIZE_MM.valueLabel, owner: row.id })));
+  });
+  const textWMm = Math.max(0, ...entryTextWMm);
 
   const plan = (sizeMm: number) => {
     const g = gridAt([glyph], sizeMm, layout.gapRatio, layout.groupEvery ?? 0);
     // The key list at the right: a unit glyph in each category's colour, its label and value.
-    const listWMm = listed ? 4 + g.cellWMm + 2 + labelWMm + (layout.valueLabels ? (layout.labels ? 2 : 0) + valueWMm : 0) : 0;
+    const listWMm = listed ? 4 + g.cellWMm + 2 + textWMm : 0;
     const roomMm = box.width - listWMm;
     let columns = layout.columns === 'auto' ? autoColumns(roomMm, g, slotCount) : layout.columns;
     const gridRows = Math.max(1, Math.ceil(slotCount / columns));
@@ -281,7 +291,8 @@ function sharedGrid(ctx: LayoutContext, counts: GlyphCount[], unit: number): Mod
   const shape = book.shape(glyph, p.inkMm2);
   // Use the page: the grid and its key list together are centred in the box, across and down.
   const blockWMm = gridWidthMm(p.columns, p) + (box.width - p.roomMm);
-  const originX = box.x + Math.max(0, box.width - blockWMm) / 2;
+  // On the file's 0.001 mm grid, like the box edges, so a glyph placed by reference and one written out rasterise alike.
+  const originX = Math.round((box.x + Math.max(0, box.width - blockWMm) / 2) * 1000) / 1000;
   const originY = box.y + Math.max(0, box.height - p.heightMm) / 2;
 
   const pieces: SceneGlyph[][] = rows.map(() => []);

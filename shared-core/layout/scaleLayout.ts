@@ -3,6 +3,7 @@
 // glyph is normalised by its own ink, so a bus and a bike still carry ink in proportion to value.
 import { scaleSqrt } from 'd3-scale';
 import type { SceneGlyph, SceneLegendKey, SceneMark, SceneText } from '../scene';
+import { TallyError } from '../errors';
 import { noRoomError } from './noRoom';
 import { planCellRows, TEXT_GAP_MM, type CellItem } from './cellRows';
 import { MIN_GLYPH_MM } from './fitSize';
@@ -34,20 +35,37 @@ export function scaleLayout(ctx: LayoutContext): ModeResult {
   const maxSize = asked !== undefined ? asked / largestSide : box.height / tallest;
   const inkPerValue = (size: number) => (maxValue > 0 ? (size * size) / maxValue : 0);
   const unitName = spec.encoding.unitName ?? '';
-  const plan = planCellRows(items, box, {
+  const rowsKeying = (keyed: typeof keys) => planCellRows(items, box, {
     columns: layout.columns,
     labels: layout.labels,
     valueLabels: layout.valueLabels,
     // The key wraps onto rows within the box's width; where not even one key column fits, the size is refused.
-    legendHeightMm: (size) => (layout.legend && maxValue > 0 ? scaleLegendHeightMm(keys, inkPerValue(size), maxValue, unitName, box.width) : 0),
+    legendHeightMm: (size) => (layout.legend && maxValue > 0 ? scaleLegendHeightMm(keyed, inkPerValue(size), maxValue, unitName, box.width) : 0),
     maxSize,
     minSize: Math.min(MIN_GLYPH_MM / largestSide, maxSize),
   });
+  const plan = rowsKeying(keys);
+  // Refused with several glyphs keyed: is the key of several glyphs the cause? (The same rows with one glyph's key fit.)
+  let judged = plan;
+  if (!plan.fits && keys.length > 1 && layout.legend && maxValue > 0) {
+    const oneKey = rowsKeying(keys.slice(0, 1));
+    if (oneKey.fits) {
+      throw new TallyError(
+        'layout-no-room',
+        `Too many different glyphs for this ${formatValue(spec.page.widthMm)} x ${formatValue(spec.page.heightMm)} mm page: the scale key needs a reference for each of the ${keys.length} glyphs drawn, ` +
+          `and with them there is no room to draw the marks and references at a legible size (at least ${formatValue(MIN_GLYPH_MM)} mm), so nothing was drawn. ` +
+          'Use a bigger page, draw every row with one glyph (clear the glyph cells in the table), or use fewer different glyphs.',
+        { what: 'The scale key\'s reference glyphs', glyphs: keys.length },
+      );
+    }
+    // Not even then: the marks and their labels are what does not fit.
+    judged = oneKey;
+  }
   if (!plan.fits) {
-    const keyFits = Number.isFinite(plan.heightMm);
+    const keyFits = Number.isFinite(judged.heightMm);
     throw noRoomError(spec, {
       what: keyFits ? 'The scaled glyphs and their labels' : 'The scale key\'s reference glyphs',
-      ...(keyFits ? { roomMm: { width: box.width, height: box.height }, neededMm: { width: plan.widthMm, height: plan.heightMm } } : {}),
+      ...(keyFits ? { roomMm: { width: box.width, height: box.height }, neededMm: { width: judged.widthMm, height: judged.heightMm } } : {}),
     });
   }
   if (asked !== undefined && plan.size < maxSize * (1 - 1e-9)) {

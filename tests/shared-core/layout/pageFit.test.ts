@@ -9,6 +9,9 @@ import { renderChart } from '../../../shared-core/pipeline/renderChart';
 import type { Scene } from '../../../shared-core/scene';
 import { caught } from '../../helpers/errors';
 import { drawnBoxes, pageFitProblems } from './pageFit';
+import { writtenBlock, writtenLegendKeys, writtenMarks, writtenTexts } from './writtenSvg';
+import { REPEAT_MAX_GLYPH_MM } from '../../../shared-core/layout/repeatLayout';
+import { MIN_GLYPH_MM } from '../../../shared-core/layout/fitSize';
 
 // Invented stations of an invented town; values chosen to give remainders and a wide range.
 const LABELS = ['Harbour Gate', 'Mill Lane', 'Old Market', 'Station Square', 'Quarry Hill', 'Ferry Steps', 'Tanners Row', 'Bell Yard', 'Copper Street', 'Lantern Walk', 'North Pier', 'Rope Walk', 'Saltmarsh', 'Weavers Close', 'Kiln Lane', 'Orchard End'];
@@ -201,28 +204,30 @@ describe('fill and scale glyphs use the content box', () => {
 });
 
 describe('the scale key with a glyph per row', () => {
-  // 16 categories, each its own glyph: 17 reference glyphs (the first glyph has two) that cannot stand in one line.
+  // 16 categories, each its own glyph: 16 or 17 reference glyphs (the first glyph may have a second, smaller one).
+  // Glyphs of one value stand side by side and share one value text per key row, so that text sets no pitch.
   for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
-    it(`wraps onto a grid inside the content box on ${pageName}, one key per glyph drawn, values centred under their glyphs`, { timeout: 60_000 }, () => {
+    it(`lays out a key inside the content box on ${pageName}, one key per glyph drawn, one value text per row of same-value glyphs`, { timeout: 60_000 }, () => {
       const spec = parseChart(chart(MODES['scale, a glyph per row'], page, 16));
       const scene = layoutChart(spec);
       expect(pageFitProblems(scene, spec)).toEqual([]);
       expect(new Set(scene.legendKeys.map((k) => k.glyph))).toEqual(new Set(ROW_GLYPHS));
-      const keyBoxes = drawnBoxes(scene).filter((d) => d.what.startsWith('legend key')).map((d) => d.box);
-      const bottoms = [...new Set(keyBoxes.map((b) => (b.y + b.height).toFixed(3)))];
-      // More than one row of key glyphs, each row standing on one baseline.
-      expect(bottoms.length).toBeGreaterThan(1);
-      // Key columns share one pitch: the centre of every key glyph is one of the first row's centres.
-      const firstBottom = Math.min(...bottoms.map(Number));
-      const centres = keyBoxes.map((b) => b.x + b.width / 2);
-      const firstRow = keyBoxes.map((b, i) => ((b.y + b.height).toFixed(3) === firstBottom.toFixed(3) ? centres[i] : NaN)).filter((c) => !Number.isNaN(c));
-      for (const c of centres) expect(Math.min(...firstRow.map((f) => Math.abs(f - c)))).toBeLessThan(1e-6);
-      // Each value text is centred under a key glyph.
+      const keys = drawnBoxes(scene).filter((d) => d.what.startsWith('legend key')).map((d, i) => ({ box: d.box, value: scene.legendKeys[i].unitValue }));
+      const bottomOf = (b: { y: number; height: number }) => (b.y + b.height).toFixed(3);
       const valueTexts = scene.texts.filter((t) => t.role === 'legend' && /things$/.test(t.text) && t.bboxMm);
-      expect(valueTexts.length).toBe(keyBoxes.length);
-      for (const t of valueTexts) {
-        const mid = t.bboxMm!.x + t.bboxMm!.width / 2;
-        expect(Math.min(...centres.map((c) => Math.abs(c - mid)))).toBeLessThan(0.3);
+      // Per key row and value: the glyphs on one baseline and one pitch, and one text under them.
+      const groups = new Map<string, typeof keys>();
+      for (const k of keys) groups.set(`${bottomOf(k.box)} ${k.value}`, [...(groups.get(`${bottomOf(k.box)} ${k.value}`) ?? []), k]);
+      expect(valueTexts.length).toBe(groups.size);
+      expect(groups.size).toBeLessThan(keys.length);
+      for (const group of groups.values()) {
+        const centres = group.map((k) => k.box.x + k.box.width / 2).sort((p, q) => p - q);
+        const pitches = centres.slice(1).map((c, i) => c - centres[i]);
+        for (const p of pitches) expect(Math.abs(p - pitches[0])).toBeLessThan(1e-6);
+        // Each glyph is centred on its cell, so the middle of the first and last glyph centres is the group's middle.
+        const middle = (centres[0] + centres[centres.length - 1]) / 2;
+        const text = valueTexts.find((t) => t.text.startsWith(`${group[0].value} `) && t.bboxMm!.y > Math.max(...group.map((k) => k.box.y)) && Math.abs(t.bboxMm!.x + t.bboxMm!.width / 2 - middle) < 0.3);
+        expect(text, `value ${group[0].value} under the row at ${bottomOf(group[0].box)}`).toBeDefined();
       }
     });
   }
@@ -242,5 +247,69 @@ describe('the scale key with a glyph per row', () => {
     // Without the key the same marks fit: the refusal is the key's.
     const spec = parseChart({ ...doc, layout: { legend: false } });
     expect(pageFitProblems(layoutChart(spec), spec)).toEqual([]);
+  });
+});
+
+describe('the shared grid uses the content box', () => {
+  // Common practice, no source: a chart block either grows until it meets the room between the margins, the title
+  // and the source line in one direction (here 90% of the room's width or height, the rest being the key list's and
+  // the legend's fixed gaps), or, where the glyph-size cap stops it first, stands centred in that room. Measured
+  // from the written SVG: the box of all ink but the title and source, against that room.
+  for (const [pageName, page] of Object.entries({ 'A5 landscape': PAGES['A5 landscape'], 'A4 portrait': PAGES['A4 portrait'], '180 x 120 mm': PAGES['180 x 120 mm'] })) {
+    for (const n of [3, 6, 9]) {
+      it(`${n} categories on ${pageName}`, { timeout: 60_000 }, () => {
+        const result = renderChart(chart(MODES['shared grid'], page, n));
+        expect(result.report.pass).toBe(true);
+        expect(pageFitProblems(result.scene, result.spec)).toEqual([]);
+        const { room, block } = writtenBlock(result.svg, result.spec.layout.margins, result.spec.page);
+        // The glyph size the layout caps: the larger side of a full unit glyph's ink box.
+        const glyphMm = Math.max(...writtenLegendKeys(result.svg).map((k) => Math.max(k.box.width, k.box.height)));
+        const fullMm = Math.max(...writtenMarks(result.svg).flatMap((m) => m.pieces.filter((p) => p.part === 'full').map((p) => Math.max(p.box.width, p.box.height))));
+        expect(Math.abs(glyphMm - fullMm)).toBeLessThan(0.01);
+        const usesWidth = block.width / room.width;
+        const usesHeight = block.height / room.height;
+        const capped = glyphMm >= REPEAT_MAX_GLYPH_MM - 0.05;
+        expect(capped || Math.max(usesWidth, usesHeight) >= 0.9, `uses ${(usesWidth * 100).toFixed(1)}% of the width, ${(usesHeight * 100).toFixed(1)}% of the height, glyphs ${glyphMm.toFixed(2)} mm`).toBe(true);
+        // Centred across within 0.1 mm (the list is planned as wide as its widest entry's ink; file coordinates
+        // carry three decimals), and down within a millimetre (the key sentence's line box is taller than its ink).
+        expect(Math.abs(block.x + block.width / 2 - (room.x + room.width / 2))).toBeLessThan(0.1);
+        expect(Math.abs(block.y + block.height / 2 - (room.y + room.height / 2))).toBeLessThan(1);
+      });
+    }
+  }
+});
+
+describe('the scale key with many different glyphs leaves room for the glyphs', () => {
+  const larger = (b: { width: number; height: number }) => Math.max(b.width, b.height);
+
+  it('16 categories with a glyph each on 180 x 120 mm: one value text per run of same-value key glyphs, every glyph legible', { timeout: 60_000 }, () => {
+    const result = renderChart(chart(MODES['scale, a glyph per row'], PAGES['180 x 120 mm'], 16));
+    expect(result.report.pass).toBe(true);
+    expect(pageFitProblems(result.scene, result.spec)).toEqual([]);
+    const keys = writtenLegendKeys(result.svg);
+    expect(new Set(keys.map((k) => k.glyph))).toEqual(new Set(ROW_GLYPHS));
+    // Reference values shown: one text per key row and value, not one per glyph.
+    const values = writtenTexts(result.svg).filter((t) => t.role === 'legend' && t.box && t.box.y > Math.min(...keys.map((k) => k.box.y)));
+    const distinct = new Set(keys.map((k) => k.unitValue));
+    expect(values.length).toBeLessThan(keys.length / 2);
+    expect(values.length).toBeGreaterThanOrEqual(distinct.size);
+    // MIN_GLYPH_MM (2.2 mm, common practice, no source): below it a glyph reads as a speck. Every key glyph is at
+    // least that on its larger side, and the largest mark at least twice its key's (a key shows a quarter of the
+    // largest value, half its linear size).
+    for (const k of keys) expect(larger(k.box), k.glyph).toBeGreaterThanOrEqual(MIN_GLYPH_MM - 0.01);
+    const largestMm = Math.max(...writtenMarks(result.svg).map((m) => larger(m.box)));
+    expect(largestMm).toBeGreaterThanOrEqual(2 * MIN_GLYPH_MM);
+  });
+
+  it('refuses with layout-no-room naming too many different glyphs when their key leaves no legible size', () => {
+    // 16 glyphs on A6 landscape (148 x 105 mm, ISO 216): their 16 references cannot stand at a legible size beside the marks.
+    const doc = chart(MODES['scale, a glyph per row'], { width: 148, height: 105 }, 16);
+    const e = caught(() => layoutChart(parseChart(doc)));
+    expect(e.code).toBe('layout-no-room');
+    expect(e.message).toMatch(/different glyphs/);
+    expect(e.message).toMatch(/one glyph/);
+    // With one glyph for every row the same data fit: the refusal is the key's many glyphs.
+    const one = parseChart(chart(MODES['scale, a glyph per row'], { width: 148, height: 105 }, 16, false));
+    expect(pageFitProblems(layoutChart(one), one)).toEqual([]);
   });
 });

@@ -121,3 +121,33 @@ export function writtenTexts(svg: string): WrittenText[] {
   }
   return out;
 }
+
+/** Key glyphs in file order: `<g class="tg-legend-key">` with one filled path (docs/chart-svg.md). */
+export function writtenLegendKeys(svg: string): { glyph: string; unitValue: number; box: BoxMm }[] {
+  const out: { glyph: string; unitValue: number; box: BoxMm }[] = [];
+  for (const g of svg.matchAll(/<g class="tg-legend-key"([^>]*)>([\s\S]*?)<\/g>/g)) {
+    const head = `<g${g[1]}>`;
+    const d = /<path[^>]*\sd="([^"]*)"/.exec(g[2]);
+    const box = d ? pathBox(d[1]) : null;
+    if (box) out.push({ glyph: attr(head, 'data-glyph') ?? '', unitValue: Number(attr(head, 'data-unit-value')), box });
+  }
+  return out;
+}
+
+/**
+ * Where the chart block may stand, and where it stands: the content box inside the margins between the title's
+ * ink and the source line's ink, and the box of all other ink (marks, key glyphs, labels, values, key text).
+ * Outlined text only (the default), so every text has an ink box.
+ */
+export function writtenBlock(svg: string, margins: { left: number; right: number; top: number; bottom: number }, page: { widthMm: number; heightMm: number }): { room: BoxMm; block: BoxMm } {
+  const texts = writtenTexts(svg);
+  const frame = (role: string) => texts.filter((t) => t.role === role && t.box).map((t) => t.box!);
+  const titles = frame('title');
+  const sources = frame('source');
+  const top = titles.length ? Math.max(...titles.map((b) => b.y + b.height)) : margins.top;
+  const bottom = sources.length ? Math.min(...sources.map((b) => b.y)) : page.heightMm - margins.bottom;
+  const room = { x: margins.left, y: top, width: page.widthMm - margins.left - margins.right, height: bottom - top };
+  const inner = texts.filter((t) => t.role !== 'title' && t.role !== 'source' && t.box).map((t) => t.box!);
+  const block = unionBox([...writtenMarks(svg).map((m) => m.box), ...writtenLegendKeys(svg).map((k) => k.box), ...inner]);
+  return { room, block };
+}

@@ -15,6 +15,9 @@ import { renderChart } from '../../../shared-core/pipeline/index';
 import { writeSvg } from '../../../shared-core/svg/index';
 import { SAME_BYTES_CASES } from './sameBytesCases';
 
+// The three shared-grid charts were re-hashed when the grid's key list was planned as wide as its widest entry's
+// ink, its left edge on the file's 0.001 mm grid: the same glyphs and list, the whole block moved right by
+// 0.13-0.15 mm so that it is centred on the page.
 const SHA256_BEFORE: Record<string, string> = {
   'demo repeat-bike-share': '1c1d66186b82e3133d777302a9d6d4b4b682fa80d8e9bfb5e71e75701f509953',
   'demo repeat-bike-share with references': '37342e6418058ac50dba9632fce9fbe5801c27cd5bbe3c18307bfc64c69ffffe',
@@ -24,13 +27,13 @@ const SHA256_BEFORE: Record<string, string> = {
   'demo scale-trees-planted with references': 'fc4ba43245e2393130b839ccdc0c374b0cea41e2dd6b775dcaba7780cc6e34e2',
   'demo fill-planting-target': '49f3a5b2ddda670b137f3aa6194694d83d6255e48921dd24e2b0f625129f0c7e',
   'demo fill-planting-target with references': '49f3a5b2ddda670b137f3aa6194694d83d6255e48921dd24e2b0f625129f0c7e',
-  'demo icon-array-commute': '3f341b318bcbb7dc2c825d23e11c4d47df433b5e0fef6e6a2e5cfb75c50f5940',
-  'demo icon-array-commute with references': '1d09e104fbf3d321aa6d8f2efd6745828794d5b61233e23f41adbb3084bbc5e7',
+  'demo icon-array-commute': '0ba0d4daf443855a82b7327fa1fbffe82e7ac5bf1baddfabf9a24bd719e2c31a',
+  'demo icon-array-commute with references': 'eccd8113d03b437220e5d6547ff5b8dd97fc25959ea40a2d155e57a6105dea11',
   'demo repeat-library-per-resident': 'b792d551e3d425cd760caf67b449b948cac7d06e2cada5a53baae9fb9a51dc69',
   'demo repeat-library-per-resident with references': '78170ea437504dcc53c0912d5e6b96512cbfe5c1de74a53bf1cc97bdddafa1f0',
   'repeat 1,000 with references': '402384e26c1e1487d9b80cbaed9de39af6d95b91b0e379141f70259e809ffa5b',
   'repeat 1,000 without references': '2a18974cde21f8c70850844bd810f2809d0745bf35039d4a7caa303d51e23b0c',
-  'repeat 1,000 shared grid': '1d0babcda39f0b062af38ccd0c34ccf5966e6fd1e9777d2ce88122e554e4d4d0',
+  'repeat 1,000 shared grid': '4aa8e3dd701d0d25527c05b7a9fb15a3ff577bf767c40914b8f38dbd55a8e803',
   'repeat 1,000 right to left': '9561067744f46860d3514878e9d0618a052b579fb29eda31e010f9342cb9f39f',
   'repeat 10,000 without references': 'aec8c38e40e17a31baf42c1b6c58f818a2300e8ec6d6ff45478d662d53a43ea0',
   'repeat 10,000 with references': 'ee31fe5f0d3c1815c6d5174f51be0c75c6ffaf2594f7d9e019240d984e8825e0',
