@@ -43,7 +43,9 @@ describe('measureGlyph on bad input', () => {
   it('a glyph of millions of commands is refused by the command limit, quickly', () => {
     const d = 'M0 0' + 'L1 1L2 0'.repeat(1_000_000);
     const ms = expectProblem(svg(`<path d="${d}"/>`), 'geometry-limit', /limit/);
-    expect(ms).toBeLessThan(5000);
+    // A bound against hanging, not a speed goal: reading 16 MB of path data takes 2-5 s on a busy 2-core
+    // machine, while measuring the 2 million segments instead of refusing them would take minutes.
+    expect(ms).toBeLessThan(20_000);
   });
   it('self-intersecting junk is refused by the crossing guard before the union can stall', () => {
     let seed = 7;
