@@ -7,7 +7,6 @@ import path from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { chromium, type Browser, type Page } from 'playwright-core';
 import { preview, type PreviewServer } from 'vite';
-import { beforeEach } from 'vitest';
 
 export const REPO = fileURLToPath(new URL('../../../../', import.meta.url));
 export const CHROMIUM = process.env.TALLYGLYPH_CHROMIUM ?? '/usr/bin/chromium';
@@ -33,11 +32,16 @@ const running = new Set<Browser>();
  * Registered when a test file imports this module, so it runs before each test of that file, ahead of the
  * file's own beforeEach that opens the page; storage kept within one test (kill the page, reopen) is untouched.
  */
-beforeEach(async () => {
-  for (const browser of running) {
-    for (const context of browser.contexts()) await context.setStorageState({ cookies: [], origins: [] });
-  }
-});
+// Only under the test runner: the benchmark (scripts/benchApp.ts) starts the app through this module too, and
+// vitest cannot be imported outside its runner.
+if (process.env.VITEST) {
+  const { beforeEach } = await import('vitest');
+  beforeEach(async () => {
+    for (const browser of running) {
+      for (const context of browser.contexts()) await context.setStorageState({ cookies: [], origins: [] });
+    }
+  });
+}
 
 /** Builds the renderer (in a child process, so NODE_ENV is production), serves it and starts Chromium. */
 export async function startApp(): Promise<AppServer> {
