@@ -1,7 +1,8 @@
 // What a PDF for print will be, said before it is made: vector, page size with bleed, text as outlines,
 // sRGB colour (CMYK is the printer's step), and checked by an independent renderer before it is written.
-import { useEffect, useRef, type ReactElement } from 'react';
+import type { ReactElement } from 'react';
 import '../documents/documents.css';
+import { useDialogFocus } from '../integrity/useDialogFocus';
 
 interface PdfExportDialogProps {
   pageLabel: string;
@@ -16,32 +17,8 @@ interface PdfExportDialogProps {
 }
 
 export function PdfExportDialog({ pageLabel, bleedMm, available, blocked, working, onExport, onClose }: PdfExportDialogProps): ReactElement {
-  const dialog = useRef<HTMLDivElement>(null);
-  useEffect(() => {
-    const previous = document.activeElement as HTMLElement | null;
-    dialog.current?.querySelector<HTMLElement>('button:not(:disabled)')?.focus();
-    return () => previous?.focus?.();
-  }, []);
-  const onKey = (e: React.KeyboardEvent) => {
-    if (e.key === 'Escape') {
-      e.stopPropagation();
-      onClose();
-    }
-    if (e.key === 'Tab') {
-      // Keep the focus inside the dialog while it is open.
-      const items = Array.from(dialog.current?.querySelectorAll<HTMLElement>('button:not(:disabled)') ?? []);
-      if (items.length === 0) return;
-      const first = items[0];
-      const last = items[items.length - 1];
-      if (e.shiftKey && document.activeElement === first) {
-        e.preventDefault();
-        last.focus();
-      } else if (!e.shiftKey && document.activeElement === last) {
-        e.preventDefault();
-        first.focus();
-      }
-    }
-  };
+  // The dialog pattern every modal of the app shares: focus in, Tab kept inside, Escape closes, focus back.
+  const { ref: dialog, onKeyDown: onKey } = useDialogFocus(onClose, () => null);
   return (
     <div className="dialog-backdrop" onMouseDown={(e) => e.target === e.currentTarget && onClose()}>
       <div className="dialog" role="dialog" aria-modal="true" aria-labelledby="pdf-dialog-title" ref={dialog} onKeyDown={onKey} data-testid="pdf-dialog">
